@@ -1,0 +1,68 @@
+// humwise-cli: the headless command line. Exit codes: 0 ok, 1 processing error (stderr names
+// the file and the problem), 2 usage error.
+
+#include "app/cli/CliError.h"
+#include "app/cli/InspectCommand.h"
+#include "app/cli/SpectrumCommand.h"
+
+#include <exception>
+#include <iostream>
+#include <string>
+#include <vector>
+
+namespace {
+
+constexpr const char* kUsage = R"(usage: humwise-cli COMMAND [options]
+
+Commands:
+  inspect FILE [--json]
+      Channels, sample rate, duration, per-channel waveform statistics and quality flags.
+  spectrum FILE [--channel N] [--window rect|hann|hamming|blackman-harris|kaiser:BETA|flattop]
+           [--lines N | --resolution HZ] [--fmax HZ] [--averages N] [--overlap F]
+           [--scale peak|rms|pp|psd] [--quantity acceleration|velocity|displacement|current|voltage]
+           [--input-unit U] [--input-scale F] [--rate HZ] [--as velocity|displacement|acceleration]
+           [--unit U] [--cutoff HZ] [--band LO:HI] [--zoom CENTRE:SPAN] [--envelope LO:HI|auto]
+           [--envelope-squared] [--peaks N] [--full] [--json|--csv]
+      Averaged (Welch), envelope or zoom spectrum of one channel, its strongest peaks and
+      the overall RMS level in a band.
+
+Files: WAV (PCM 8/16/24/32-bit, float 32/64, extensible) and CSV (see README.md).
+A WAV carries no unit: --quantity (default acceleration) and --input-unit (default g for
+acceleration, mm/s for velocity, um for displacement, A for current, V for voltage) say
+what its samples are; --input-scale multiplies them first (e.g. 1/sensitivity).
+
+Safety: measuring on live motor circuits can kill. Use equipment rated for the measurement
+category, fit clamps and taps de-energised and locked out where possible, wear arc-flash
+protection, and leave the work to qualified persons under local codes and site rules.
+)";
+
+} // namespace
+
+int main(int argc, char** argv) {
+    using namespace humwise::cli;
+    std::vector<std::string> args(argv + 1, argv + argc);
+    if (args.empty()) {
+        std::cerr << kUsage;
+        return kExitUsageError;
+    }
+    const std::string command = args.front();
+    args.erase(args.begin());
+    try {
+        if (command == "--help" || command == "-h" || command == "help") {
+            std::cout << kUsage;
+            return kExitOk;
+        }
+        if (command == "inspect") return runInspect(args, std::cout);
+        if (command == "spectrum") return runSpectrum(args, std::cout);
+        throw UsageError("unknown command '" + command + "'");
+    } catch (const UsageError& e) {
+        std::cerr << "humwise-cli: usage error: " << e.what() << "\n(run 'humwise-cli --help' for the commands and options)\n";
+        return kExitUsageError;
+    } catch (const ProcessingError& e) {
+        std::cerr << "humwise-cli: error: " << e.what() << '\n';
+        return kExitProcessingError;
+    } catch (const std::exception& e) {
+        std::cerr << "humwise-cli: error: " << e.what() << '\n';
+        return kExitProcessingError;
+    }
+}

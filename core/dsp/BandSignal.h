@@ -1,0 +1,47 @@
+#pragma once
+// Band-limited analytic signals cut from the spectrum of a whole record.
+//
+// Method (Randall & Antoni 2011, "Rolling element bearing diagnostics - A tutorial", MSSP 25,
+// step 5 of their procedure; REFERENCE.md 8.1): transform the whole record once, keep the
+// one-sided lines of the band [lo, hi] (cosine-tapered over 10 % of the band at each edge),
+// shift them down to start at 0 Hz and inverse-transform a short length M. The result is the
+// analytic band signal, demodulated by lo and decimated to M fs / N without aliasing.
+// Scaling: z[m] = (2 / N) sum_i T_i X[k_lo + i] exp(+j 2 pi i m / M), so |z| of
+// A cos(2 pi f t + phi) with f inside the band is A (its amplitude envelope).
+
+#include <complex>
+#include <cstddef>
+#include <span>
+#include <vector>
+
+namespace humwise::dsp {
+
+class RecordSpectrum {
+public:
+    // Mean removed; the transform length is the record length.
+    RecordSpectrum(std::span<const double> x, double sampleRateHz);
+
+    std::size_t length() const { return m_n; }
+    double sampleRateHz() const { return m_fs; }
+    double lineSpacingHz() const { return m_fs / static_cast<double>(m_n); }
+    std::span<const std::complex<double>> bins() const { return m_bins; }
+
+private:
+    std::size_t m_n = 0;
+    double m_fs = 0;
+    std::vector<std::complex<double>> m_bins; // n/2 + 1 one-sided lines
+};
+
+struct BandSignal {
+    std::vector<std::complex<double>> samples;
+    double sampleRateHz = 0;
+    double loHz = 0; // band actually used (rounded to lines)
+    double hiHz = 0;
+};
+
+// Cuts [loHz, hiHz] out of `spectrum`; the output has at least `minLength` samples (more if the
+// band needs them) and a length FFTW transforms fast. taperFraction in [0, 0.5].
+BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength = 0,
+                       double taperFraction = 0.1);
+
+} // namespace humwise::dsp

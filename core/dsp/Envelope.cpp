@@ -1,0 +1,63 @@
+#include "core/dsp/Envelope.h"
+
+#include <algorithm>
+#include <cmath>
+#include <stdexcept>
+#include <string>
+
+namespace humwise::dsp {
+
+Result<EnvelopeResult, AnalysisError> envelopeSpectrum(std::span<const double> x, double fs, const EnvelopeRequest& r) {
+    using Code = AnalysisError::Code;
+    if (!(fs > 0)) return fail(AnalysisError{Code::InvalidRequest, "envelope: sample rate must be > 0"});
+    if (x.size() < 256) return fail(AnalysisError{Code::RecordTooShort, "envelope: the record needs at least 256 samples"});
+    const RecordSpectrum record(x, fs);
+    EnvelopeResult out;
+    if (r.autoBand) {
+        try {
+            out.kurtogram = fastKurtogram(record, r.kurtogram);
+        } catch (const std::invalid_argument& e) {
+            return fail(AnalysisError{Code::InvalidRequest, std::string("envelope: ") + e.what()});
+        }
+        out.bandLowHz = out.kurtogram->best.loHz;
+        out.bandHighHz = out.kurtogram->best.hiHz;
+    } else {
+        out.bandLowHz = r.bandLowHz;
+        out.bandHighHz = r.bandHighHz;
+    }
+    if (!(out.bandHighHz > out.bandLowHz) || out.bandLowHz < 0 || out.bandHighHz > fs / 2)
+        return fail(AnalysisError{Code::InvalidRequest, "envelope: the band must satisfy 0 <= low < high <= fs/2"});
+
+    SpectrumRequest sr = r.spectrum;
+    const double fmax = sr.fmaxHz.value_or(kDefaultEnvelopeFmaxHz);
+    sr.fmaxHz = fmax;
+    // The (squared) envelope spans up to the band's width: sample at >= 2 x width and >= 2.56 fmax.
+    const double df = record.lineSpacingHz();
+    const auto widthLines = static_cast<std::size_t>(std::ceil((out.bandHighHz - out.bandLowHz) / df)) + 1;
+    const auto fmaxLines = static_cast<std::size_t>(std::ceil(2.56 * fmax / df));
+    BandSignal band;
+    try {
+        band = extractBand(record, out.bandLowHz, out.bandHighHz, std::max(2 * widthLines, fmaxLines));
+    } catch (const std::invalid_argument& e) {
+        return fail(AnalysisError{Code::InvalidRequest, std::string("envelope: ") + e.what()});
+    }
+    out.bandLowHz = band.loHz;
+    out.bandHighHz = band.hiHz;
+    out.envelopeRateHz = band.sampleRateHz;
+
+    std::vector<double> env(band.samples.size());
+    std::transform(band.samples.begin(), band.samples.end(), env.begin(),
+                   [&](const std::complex<double>& z) { return r.squared ? std::norm(z) : std::abs(z); });
+    if (!sr.lines && !sr.resolutionHz) {
+        // About 0.5 Hz lines when the record allows, else one segment of the whole envelope.
+        const double wanted = std::max(0.5, band.sampleRateHz / static_cast<double>(env.size()));
+        sr.resolutionHz = wanted;
+    }
+    sr.removeMean = true;
+    auto spectrum = averagedSpectrum(env, band.sampleRateHz, sr);
+    if (!spectrum) return fail(spectrum.error());
+    out.spectrum = std::move(spectrum).value();
+    return out;
+}
+
+} // namespace humwise::dsp

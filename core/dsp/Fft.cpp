@@ -1,0 +1,206 @@
+#include "core/dsp/Fft.h"
+
+#include <fftw3.h>
+
+#include <map>
+#include <mutex>
+#include <new>
+#include <stdexcept>
+#include <string>
+#include <tuple>
+#include <utility>
+
+namespace humwise::dsp {
+namespace {
+
+enum class PlanKind { RealForward, ComplexForward, ComplexBackward };
+
+template <class Real> struct Fftw;
+
+template <> struct Fftw<double> {
+    using Complex = fftw_complex;
+    static void* malloc(std::size_t bytes) { return fftw_malloc(bytes); }
+    static void free(void* p) { fftw_free(p); }
+    static void* planR2c(int n, double* in, Complex* out) {
+        return fftw_plan_dft_r2c_1d(n, in, out, FFTW_ESTIMATE);
+    }
+    static void* planC2c(int n, Complex* data, int sign) {
+        return fftw_plan_dft_1d(n, data, data, sign, FFTW_ESTIMATE);
+    }
+    static void executeR2c(void* plan, double* in, Complex* out) {
+        fftw_execute_dft_r2c(static_cast<fftw_plan>(plan), in, out);
+    }
+    static void executeC2c(void* plan, Complex* data) {
+        fftw_execute_dft(static_cast<fftw_plan>(plan), data, data);
+    }
+};
+
+template <> struct Fftw<float> {
+    using Complex = fftwf_complex;
+    static void* malloc(std::size_t bytes) { return fftwf_malloc(bytes); }
+    static void free(void* p) { fftwf_free(p); }
+    static void* planR2c(int n, float* in, Complex* out) {
+        return fftwf_plan_dft_r2c_1d(n, in, out, FFTW_ESTIMATE);
+    }
+    static void* planC2c(int n, Complex* data, int sign) {
+        return fftwf_plan_dft_1d(n, data, data, sign, FFTW_ESTIMATE);
+    }
+    static void executeR2c(void* plan, float* in, Complex* out) {
+        fftwf_execute_dft_r2c(static_cast<fftwf_plan>(plan), in, out);
+    }
+    static void executeC2c(void* plan, Complex* data) {
+        fftwf_execute_dft(static_cast<fftwf_plan>(plan), data, data);
+    }
+};
+
+using PlanKey = std::tuple<std::size_t, PlanKind, bool /*isDouble*/>;
+
+std::mutex& plannerMutex() {
+    static std::mutex m;
+    return m;
+}
+std::map<PlanKey, void*>& planCache() {
+    static std::map<PlanKey, void*> cache; // plans live for the whole process
+    return cache;
+}
+
+void checkSize(std::size_t n, const char* who) {
+    if (n == 0 || n > static_cast<std::size_t>(1) << 30)
+        throw std::invalid_argument(std::string(who) + ": transform size must be between 1 and 2^30, got " +
+                                    std::to_string(n));
+}
+
+template <class T>
+T* allocate(std::size_t count) {
+    using F = Fftw<std::conditional_t<std::is_same_v<T, std::complex<float>> || std::is_same_v<T, float>, float, double>>;
+    void* p = F::malloc(sizeof(T) * count);
+    if (!p) throw std::bad_alloc();
+    return static_cast<T*>(p);
+}
+
+template <class Real>
+void release(void* p) {
+    if (p) Fftw<Real>::free(p);
+}
+
+// Plans are made on scratch buffers of the same (FFTW-chosen) alignment as every buffer
+// allocated above, which is what FFTW's new-array execute functions require.
+template <class Real>
+void* cachedPlan(std::size_t n, PlanKind kind) {
+    using F = Fftw<Real>;
+    const PlanKey key{n, kind, std::is_same_v<Real, double>};
+    std::lock_guard lock(plannerMutex());
+    auto& cache = planCache();
+    if (auto it = cache.find(key); it != cache.end()) return it->second;
+    void* plan = nullptr;
+    if (kind == PlanKind::RealForward) {
+        Real* in = allocate<Real>(n);
+        auto* out = allocate<std::complex<Real>>(n / 2 + 1);
+        plan = F::planR2c(static_cast<int>(n), in, reinterpret_cast<typename F::Complex*>(out));
+        release<Real>(in);
+        release<Real>(out);
+    } else {
+        auto* data = allocate<std::complex<Real>>(n);
+        plan = F::planC2c(static_cast<int>(n), reinterpret_cast<typename F::Complex*>(data),
+                          kind == PlanKind::ComplexForward ? FFTW_FORWARD : FFTW_BACKWARD);
+        release<Real>(data);
+    }
+    if (!plan) throw std::runtime_error("FFTW could not create a plan of size " + std::to_string(n));
+    cache.emplace(key, plan);
+    return plan;
+}
+
+} // namespace
+
+template <class Real>
+RealFft<Real>::RealFft(std::size_t n) : m_n(n) {
+    checkSize(n, "RealFft");
+    m_plan = cachedPlan<Real>(n, PlanKind::RealForward);
+    m_in = allocate<Real>(n);
+    m_out = allocate<std::complex<Real>>(n / 2 + 1);
+}
+
+template <class Real>
+RealFft<Real>::~RealFft() {
+    release<Real>(m_in);
+    release<Real>(m_out);
+}
+
+template <class Real>
+RealFft<Real>::RealFft(RealFft&& other) noexcept
+    : m_n(std::exchange(other.m_n, 0)), m_in(std::exchange(other.m_in, nullptr)),
+      m_out(std::exchange(other.m_out, nullptr)), m_plan(std::exchange(other.m_plan, nullptr)) {}
+
+template <class Real>
+RealFft<Real>& RealFft<Real>::operator=(RealFft&& other) noexcept {
+    if (this != &other) {
+        release<Real>(m_in);
+        release<Real>(m_out);
+        m_n = std::exchange(other.m_n, 0);
+        m_in = std::exchange(other.m_in, nullptr);
+        m_out = std::exchange(other.m_out, nullptr);
+        m_plan = std::exchange(other.m_plan, nullptr);
+    }
+    return *this;
+}
+
+template <class Real>
+void RealFft<Real>::execute() {
+    if (!m_plan) throw std::logic_error("RealFft::execute on a moved-from object");
+    Fftw<Real>::executeR2c(m_plan, m_in, reinterpret_cast<typename Fftw<Real>::Complex*>(m_out));
+}
+
+template <class Real>
+ComplexFft<Real>::ComplexFft(std::size_t n, FftDirection direction) : m_n(n) {
+    checkSize(n, "ComplexFft");
+    m_plan = cachedPlan<Real>(n, direction == FftDirection::Forward ? PlanKind::ComplexForward
+                                                                    : PlanKind::ComplexBackward);
+    m_data = allocate<std::complex<Real>>(n);
+}
+
+template <class Real>
+ComplexFft<Real>::~ComplexFft() { release<Real>(m_data); }
+
+template <class Real>
+ComplexFft<Real>::ComplexFft(ComplexFft&& other) noexcept
+    : m_n(std::exchange(other.m_n, 0)), m_data(std::exchange(other.m_data, nullptr)),
+      m_plan(std::exchange(other.m_plan, nullptr)) {}
+
+template <class Real>
+ComplexFft<Real>& ComplexFft<Real>::operator=(ComplexFft&& other) noexcept {
+    if (this != &other) {
+        release<Real>(m_data);
+        m_n = std::exchange(other.m_n, 0);
+        m_data = std::exchange(other.m_data, nullptr);
+        m_plan = std::exchange(other.m_plan, nullptr);
+    }
+    return *this;
+}
+
+template <class Real>
+void ComplexFft<Real>::execute() {
+    if (!m_plan) throw std::logic_error("ComplexFft::execute on a moved-from object");
+    Fftw<Real>::executeC2c(m_plan, reinterpret_cast<typename Fftw<Real>::Complex*>(m_data));
+}
+
+template class RealFft<double>;
+template class RealFft<float>;
+template class ComplexFft<double>;
+template class ComplexFft<float>;
+
+std::size_t nextFastFftSize(std::size_t n) {
+    if (n <= 1) return 1;
+    for (std::size_t m = n;; ++m) {
+        std::size_t r = m;
+        for (std::size_t p : {2u, 3u, 5u, 7u})
+            while (r % p == 0) r /= p;
+        if (r == 1) return m;
+    }
+}
+
+std::size_t cachedPlanCount() {
+    std::lock_guard lock(plannerMutex());
+    return planCache().size();
+}
+
+} // namespace humwise::dsp

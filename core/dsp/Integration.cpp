@@ -1,0 +1,72 @@
+#include "core/dsp/Integration.h"
+
+#include "core/dsp/Fft.h"
+
+#include <cmath>
+#include <complex>
+#include <numbers>
+#include <stdexcept>
+#include <string>
+
+namespace humwise::dsp {
+namespace {
+
+int motionOrder(Quantity q) {
+    switch (q) {
+    case Quantity::Displacement: return 0;
+    case Quantity::Velocity: return 1;
+    case Quantity::Acceleration: return 2;
+    default:
+        throw std::invalid_argument("integration: " + std::string(quantityName(q)) +
+                                    " is not acceleration, velocity or displacement");
+    }
+}
+
+} // namespace
+
+int integrationSteps(Quantity from, Quantity to) { return motionOrder(from) - motionOrder(to); }
+
+void convertSpectrum(Spectrum& s, Quantity to, double cutoffHz) {
+    const int steps = integrationSteps(s.quantity, to);
+    if (steps == 0) return;
+    const double power = s.scale == SpectrumScale::Psd ? 2.0 * steps : static_cast<double>(steps);
+    for (std::size_t k = 0; k < s.values.size(); ++k) {
+        const double f = s.frequencyHz(k);
+        if (f < cutoffHz || f <= 0) {
+            s.values[k] = 0.0;
+            continue;
+        }
+        s.values[k] /= std::pow(2.0 * std::numbers::pi * f, power);
+    }
+    s.quantity = to;
+}
+
+std::vector<double> convertWaveform(std::span<const double> x, double fs, Quantity from, Quantity to, double cutoffHz) {
+    const int steps = integrationSteps(from, to);
+    std::vector<double> out(x.begin(), x.end());
+    if (steps == 0 || x.empty()) return out;
+    const std::size_t n = x.size();
+    ComplexFft<double> forward(n, FftDirection::Forward);
+    ComplexFft<double> backward(n, FftDirection::Backward);
+    auto data = forward.data();
+    for (std::size_t i = 0; i < n; ++i) data[i] = x[i];
+    forward.execute();
+    auto spec = backward.data();
+    const std::complex<double> j(0.0, 1.0);
+    for (std::size_t k = 0; k < n; ++k) {
+        // Signed frequency of bin k of a complex transform.
+        const double kk = k <= n / 2 ? static_cast<double>(k) : static_cast<double>(k) - static_cast<double>(n);
+        const double f = kk * fs / static_cast<double>(n);
+        if (std::abs(f) < cutoffHz || f == 0) {
+            spec[k] = 0.0;
+            continue;
+        }
+        const std::complex<double> jw = j * (2.0 * std::numbers::pi * f);
+        spec[k] = data[k] / std::pow(jw, steps);
+    }
+    backward.execute();
+    for (std::size_t i = 0; i < n; ++i) out[i] = spec[i].real() / static_cast<double>(n);
+    return out;
+}
+
+} // namespace humwise::dsp

@@ -1,0 +1,82 @@
+#include "core/dsp/Kurtogram.h"
+
+#include <cmath>
+#include <stdexcept>
+
+namespace humwise::dsp {
+namespace {
+
+struct BandMoments {
+    double meanSquare = 0; // <|z|^2>
+    double kurtosis = 0;   // <|z|^4> / <|z|^2>^2 - 2
+};
+
+BandMoments complexEnvelopeMoments(const BandSignal& band) {
+    double m2 = 0, m4 = 0;
+    for (const auto& z : band.samples) {
+        const double p = std::norm(z);
+        m2 += p;
+        m4 += p * p;
+    }
+    const double n = static_cast<double>(band.samples.size());
+    m2 /= n;
+    m4 /= n;
+    return {m2, m2 > 0 ? m4 / (m2 * m2) - 2.0 : 0.0};
+}
+
+// Average power density of the record, unit^2 per Hz, from its one-sided lines.
+double averageDensity(const RecordSpectrum& spectrum) {
+    double sum = 0;
+    for (const auto& x : spectrum.bins()) sum += std::norm(x);
+    const double n = static_cast<double>(spectrum.length());
+    const double meanSquare = 2.0 * sum / (n * n); // Parseval, one-sided (DC and Nyquist counted twice: negligible)
+    return meanSquare / (spectrum.sampleRateHz() / 2.0);
+}
+
+} // namespace
+
+Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& r) {
+    const double nyquist = spectrum.sampleRateHz() / 2.0;
+    int maxLevel = r.maxLevel;
+    if (maxLevel < 0) {
+        const int fromLength = static_cast<int>(std::floor(std::log2(static_cast<double>(spectrum.length())))) - 7;
+        maxLevel = std::max(1, std::min(8, fromLength));
+    }
+    Kurtogram result;
+    result.best.kurtosis = -INFINITY;
+    const double df = spectrum.lineSpacingHz();
+    const double density = averageDensity(spectrum);
+    for (int k = 0; k <= maxLevel; ++k) {
+        for (int third = 0; third < 2; ++third) {
+            if (third == 1 && k == maxLevel) break;
+            const double bands = third ? 3.0 * std::pow(2.0, k) : std::pow(2.0, k);
+            const double level = third ? k + std::log2(3.0) : k;
+            const double width = nyquist / bands;
+            if (width < 4 * df) continue; // too few lines for a meaningful statistic
+            for (int b = 0; b < static_cast<int>(bands); ++b) {
+                KurtogramCell cell;
+                cell.level = level;
+                cell.loHz = b * width;
+                cell.hiHz = (b + 1) * width;
+                if (cell.bandwidthHz() < r.minBandwidthHz || cell.loHz < r.minFrequencyHz || cell.hiHz > r.maxFrequencyHz)
+                    continue;
+                // Twice the band's lines: |z|^2 and |z|^4 then keep their full bandwidth.
+                const auto widthLines = static_cast<std::size_t>(std::ceil(width / df));
+                const BandSignal band = extractBand(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
+                const BandMoments moments = complexEnvelopeMoments(band);
+                cell.kurtosis = moments.kurtosis;
+                // z is the amplitude envelope (BandSignal.h), so the band's real signal has mean square <|z|^2> / 2.
+                const double bandDensity = 0.5 * moments.meanSquare / cell.bandwidthHz();
+                cell.relativeDensityDb = density > 0 && bandDensity > 0 ? 10.0 * std::log10(bandDensity / density) : -INFINITY;
+                if (cell.relativeDensityDb < r.minRelativeDensityDb) continue;
+                result.cells.push_back(cell);
+                if (cell.kurtosis > result.best.kurtosis) result.best = cell;
+            }
+        }
+    }
+    if (result.cells.empty())
+        throw std::invalid_argument("fastKurtogram: no band satisfies the request (record too short or limits too tight)");
+    return result;
+}
+
+} // namespace humwise::dsp

@@ -1,0 +1,198 @@
+#include "core/dsp/Spectrum.h"
+
+#include "core/dsp/Fft.h"
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <cstdio>
+#include <limits>
+#include <string>
+
+namespace humwise::dsp {
+namespace {
+
+constexpr double kSqrt2 = 1.4142135623730951;
+
+std::string requestError(const std::string& what) { return "spectrum: " + what; }
+
+Result<std::size_t, AnalysisError> chooseSegmentLength(std::size_t available, double fs, const SpectrumRequest& r,
+                                                       double fmax) {
+    if (r.resolutionHz) {
+        if (!(*r.resolutionHz > 0) || !std::isfinite(*r.resolutionHz))
+            return fail(AnalysisError{AnalysisError::Code::InvalidRequest, requestError("resolution must be > 0 Hz")});
+        return static_cast<std::size_t>(std::llround(fs / *r.resolutionHz));
+    }
+    if (r.lines) {
+        if (*r.lines < 1 || *r.lines > (1u << 26))
+            return fail(AnalysisError{AnalysisError::Code::InvalidRequest, requestError("lines must be between 1 and 2^26")});
+        return static_cast<std::size_t>(std::llround(fs * static_cast<double>(*r.lines) / fmax));
+    }
+    const auto wanted = static_cast<std::size_t>(std::llround(fs * static_cast<double>(kDefaultLines) / fmax));
+    return std::min(wanted, available);
+}
+
+} // namespace
+
+std::optional<SpectrumScale> parseSpectrumScale(std::string_view text) {
+    if (text == "peak" || text == "pk") return SpectrumScale::Peak;
+    if (text == "rms") return SpectrumScale::Rms;
+    if (text == "pp" || text == "peak-to-peak" || text == "pk-pk") return SpectrumScale::PeakToPeak;
+    if (text == "psd") return SpectrumScale::Psd;
+    return std::nullopt;
+}
+
+std::string_view spectrumScaleName(SpectrumScale scale) {
+    switch (scale) {
+    case SpectrumScale::Peak: return "peak";
+    case SpectrumScale::Rms: return "rms";
+    case SpectrumScale::PeakToPeak: return "pp";
+    case SpectrumScale::Psd: return "psd";
+    }
+    return "?";
+}
+
+double scaleLine(double meanSquaredMagnitude, bool isEdge, SpectrumScale scale, double s1, double s2, double fs) {
+    const double factor = isEdge ? 1.0 : 2.0;
+    if (scale == SpectrumScale::Psd) return factor * meanSquaredMagnitude / (fs * s2);
+    const double peak = factor * std::sqrt(meanSquaredMagnitude) / s1;
+    switch (scale) {
+    case SpectrumScale::Peak: return peak;
+    case SpectrumScale::Rms: return isEdge ? peak : peak / kSqrt2;
+    case SpectrumScale::PeakToPeak: return 2.0 * peak;
+    case SpectrumScale::Psd: break;
+    }
+    return peak;
+}
+
+Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, double fs, const SpectrumRequest& r) {
+    using Code = AnalysisError::Code;
+    if (!(fs > 0) || !std::isfinite(fs))
+        return fail(AnalysisError{Code::InvalidRequest, requestError("sample rate must be > 0")});
+    if (!(r.overlap >= 0.0 && r.overlap < 1.0))
+        return fail(AnalysisError{Code::InvalidRequest, requestError("overlap must be in [0, 1)")});
+    if (x.size() < 2)
+        return fail(AnalysisError{Code::RecordTooShort, requestError("the record has fewer than 2 samples")});
+    const double nyquist = fs / 2.0;
+    double fmax = r.fmaxHz.value_or(fs / 2.56);
+    if (!(fmax > 0) || !std::isfinite(fmax))
+        return fail(AnalysisError{Code::InvalidRequest, requestError("fmax must be > 0 Hz")});
+    fmax = std::min(fmax, nyquist);
+
+    auto segment = chooseSegmentLength(x.size(), fs, r, fmax);
+    if (!segment) return fail(segment.error());
+    const std::size_t n = segment.value();
+    if (n < 2)
+        return fail(AnalysisError{Code::InvalidRequest, requestError("the asked resolution is coarser than fs/2")});
+    const std::size_t step = std::max<std::size_t>(1, static_cast<std::size_t>(std::llround(static_cast<double>(n) * (1.0 - r.overlap))));
+    const std::size_t wantedAverages = r.averages.value_or(0);
+    if (r.averages && wantedAverages == 0)
+        return fail(AnalysisError{Code::InvalidRequest, requestError("averages must be >= 1")});
+    const std::size_t needed = n + (std::max<std::size_t>(wantedAverages, 1) - 1) * step;
+    if (x.size() < needed) {
+        const double haveS = static_cast<double>(x.size()) / fs, needS = static_cast<double>(needed) / fs;
+        char buf[256];
+        std::snprintf(buf, sizeof buf,
+                      "record too short for the requested resolution: %.4g Hz lines x %zu averages need %.4g s, the record has %.4g s",
+                      fs / static_cast<double>(n), std::max<std::size_t>(wantedAverages, 1), needS, haveS);
+        return fail(AnalysisError{Code::RecordTooShort, requestError(buf)});
+    }
+    const std::size_t available = 1 + (x.size() - n) / step;
+    const std::size_t averages = r.averages ? wantedAverages : available;
+
+    const std::vector<double> w = makeWindow(r.window, n);
+    double s1 = 0, s2 = 0;
+    for (double v : w) {
+        s1 += v;
+        s2 += v * v;
+    }
+    RealFft<double> fft(n);
+    const std::size_t bins = n / 2 + 1;
+    std::vector<double> power(bins, 0.0);
+    auto in = fft.input();
+    for (std::size_t a = 0; a < averages; ++a) {
+        const double* seg = x.data() + a * step;
+        double mean = 0;
+        if (r.removeMean) {
+            for (std::size_t i = 0; i < n; ++i) mean += seg[i];
+            mean /= static_cast<double>(n);
+        }
+        for (std::size_t i = 0; i < n; ++i) in[i] = (seg[i] - mean) * w[i];
+        fft.execute();
+        const auto out = fft.output();
+        for (std::size_t k = 0; k < bins; ++k) power[k] += std::norm(out[k]);
+    }
+
+    Spectrum s;
+    s.sampleRateHz = fs;
+    s.resolutionHz = fs / static_cast<double>(n);
+    s.enbwHz = fs * s2 / (s1 * s1);
+    s.segmentLength = n;
+    s.transformLength = n;
+    s.averages = averages;
+    s.window = r.window;
+    s.scale = r.scale;
+    s.quantity = r.quantity;
+    const std::size_t lines = std::min(bins - 1, static_cast<std::size_t>(std::floor(fmax / s.resolutionHz + 1e-9)));
+    s.values.resize(lines + 1);
+    const double inv = 1.0 / static_cast<double>(averages);
+    for (std::size_t k = 0; k <= lines; ++k) {
+        const bool edge = k == 0 || (n % 2 == 0 && k == n / 2);
+        s.values[k] = scaleLine(power[k] * inv, edge, r.scale, s1, s2, fs);
+    }
+    return s;
+}
+
+double lineMeanSquare(const Spectrum& s, std::size_t k) {
+    const double v = s.values[k];
+    const double nenbw = s.enbwHz / (s.sampleRateHz / static_cast<double>(s.segmentLength));
+    // Zero padding spreads one line's power over Nfft/N lines: divide by that too.
+    const double pad = static_cast<double>(s.transformLength) / static_cast<double>(s.segmentLength);
+    switch (s.scale) {
+    case SpectrumScale::Psd: return v * s.resolutionHz;
+    case SpectrumScale::Rms: return v * v / nenbw / pad;
+    case SpectrumScale::Peak: return v * v / 2.0 / nenbw / pad;
+    case SpectrumScale::PeakToPeak: return v * v / 8.0 / nenbw / pad;
+    }
+    return 0;
+}
+
+double bandRms(const Spectrum& s, double loHz, double hiHz) {
+    double sum = 0;
+    for (std::size_t k = 0; k < s.values.size(); ++k) {
+        const double f = s.frequencyHz(k);
+        if (f >= loHz && f <= hiHz) sum += lineMeanSquare(s, k);
+    }
+    return std::sqrt(sum);
+}
+
+void rescale(Spectrum& s, SpectrumScale to) {
+    if (s.scale == to) return;
+    for (std::size_t k = 0; k < s.values.size(); ++k) {
+        // Go through the per-line power PS = (rms amplitude)^2, which all scales share.
+        const bool edge = s.startHz == 0 && (k == 0 || (s.transformLength % 2 == 0 && k == s.transformLength / 2));
+        double ps = 0;
+        const double v = s.values[k];
+        switch (s.scale) {
+        case SpectrumScale::Psd: ps = v * s.enbwHz; break;
+        case SpectrumScale::Rms: ps = v * v; break;
+        case SpectrumScale::Peak: ps = edge ? v * v : v * v / 2.0; break;
+        case SpectrumScale::PeakToPeak: ps = edge ? v * v / 4.0 : v * v / 8.0; break;
+        }
+        switch (to) {
+        case SpectrumScale::Psd: s.values[k] = ps / s.enbwHz; break;
+        case SpectrumScale::Rms: s.values[k] = std::sqrt(ps); break;
+        case SpectrumScale::Peak: s.values[k] = edge ? std::sqrt(ps) : std::sqrt(2.0 * ps); break;
+        case SpectrumScale::PeakToPeak: s.values[k] = edge ? 2.0 * std::sqrt(ps) : 2.0 * std::sqrt(2.0 * ps); break;
+        }
+    }
+    s.scale = to;
+}
+
+double toDb(double value, SpectrumScale scale, double reference) {
+    if (value <= 0) return -std::numeric_limits<double>::infinity();
+    return scale == SpectrumScale::Psd ? 10.0 * std::log10(value / (reference * reference))
+                                       : 20.0 * std::log10(value / reference);
+}
+
+} // namespace humwise::dsp
