@@ -32,6 +32,7 @@ public:
     std::size_t binCount() const { return m_n / 2 + 1; }
     std::span<Real> input() { return {m_in, m_n}; }
     std::span<const std::complex<Real>> output() const { return {m_out, binCount()}; }
+    std::span<std::complex<Real>> output() { return {m_out, binCount()}; }
     void execute();
 
 private:

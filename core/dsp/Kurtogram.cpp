@@ -1,6 +1,9 @@
 #include "core/dsp/Kurtogram.h"
 
+#include <algorithm>
 #include <cmath>
+#include <utility>
+#include <vector>
 #include <stdexcept>
 
 namespace humwise::dsp {
@@ -46,32 +49,34 @@ Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& 
     result.best.kurtosis = -INFINITY;
     const double df = spectrum.lineSpacingHz();
     const double density = averageDensity(spectrum);
+    // Levels in Antoni's order: 0, 1, 1.6, 2, 2.6, ... (k with 2^k bands, k + log2 3 with 3 * 2^k).
+    std::vector<std::pair<double, double>> levels; // (level, band count)
     for (int k = 0; k <= maxLevel; ++k) {
-        for (int third = 0; third < 2; ++third) {
-            if (third == 1 && k == maxLevel) break;
-            const double bands = third ? 3.0 * std::pow(2.0, k) : std::pow(2.0, k);
-            const double level = third ? k + std::log2(3.0) : k;
-            const double width = nyquist / bands;
-            if (width < 4 * df) continue; // too few lines for a meaningful statistic
-            for (int b = 0; b < static_cast<int>(bands); ++b) {
-                KurtogramCell cell;
-                cell.level = level;
-                cell.loHz = b * width;
-                cell.hiHz = (b + 1) * width;
-                if (cell.bandwidthHz() < r.minBandwidthHz || cell.loHz < r.minFrequencyHz || cell.hiHz > r.maxFrequencyHz)
-                    continue;
-                // Twice the band's lines: |z|^2 and |z|^4 then keep their full bandwidth.
-                const auto widthLines = static_cast<std::size_t>(std::ceil(width / df));
-                const BandSignal band = extractBand(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
-                const BandMoments moments = complexEnvelopeMoments(band);
-                cell.kurtosis = moments.kurtosis;
-                // z is the amplitude envelope (BandSignal.h), so the band's real signal has mean square <|z|^2> / 2.
-                const double bandDensity = 0.5 * moments.meanSquare / cell.bandwidthHz();
-                cell.relativeDensityDb = density > 0 && bandDensity > 0 ? 10.0 * std::log10(bandDensity / density) : -INFINITY;
-                if (cell.relativeDensityDb < r.minRelativeDensityDb) continue;
-                result.cells.push_back(cell);
-                if (cell.kurtosis > result.best.kurtosis) result.best = cell;
-            }
+        levels.emplace_back(k, std::pow(2.0, k));
+        if (k + std::log2(3.0) <= maxLevel) levels.emplace_back(k + std::log2(3.0), 3.0 * std::pow(2.0, k));
+    }
+    std::sort(levels.begin(), levels.end());
+    for (const auto& [level, bands] : levels) {
+        const double width = nyquist / bands;
+        if (width < 4 * df) continue; // too few lines for a meaningful statistic
+        for (int b = 0; b < static_cast<int>(bands); ++b) {
+            KurtogramCell cell;
+            cell.level = level;
+            cell.loHz = b * width;
+            cell.hiHz = (b + 1) * width;
+            if (cell.bandwidthHz() < r.minBandwidthHz || cell.loHz < r.minFrequencyHz || cell.hiHz > r.maxFrequencyHz)
+                continue;
+            // Twice the band's lines: |z|^2 and |z|^4 then keep their full bandwidth.
+            const auto widthLines = static_cast<std::size_t>(std::ceil(width / df));
+            const BandSignal band = extractBand(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
+            const BandMoments moments = complexEnvelopeMoments(band);
+            cell.kurtosis = moments.kurtosis;
+            // z is the amplitude envelope (BandSignal.h), so the band's real signal has mean square <|z|^2> / 2.
+            const double bandDensity = 0.5 * moments.meanSquare / cell.bandwidthHz();
+            cell.relativeDensityDb = density > 0 && bandDensity > 0 ? 10.0 * std::log10(bandDensity / density) : -INFINITY;
+            if (cell.relativeDensityDb < r.minRelativeDensityDb) continue;
+            result.cells.push_back(cell);
+            if (cell.kurtosis > result.best.kurtosis) result.best = cell;
         }
     }
     if (result.cells.empty())

@@ -3,6 +3,11 @@
 #include "core/dsp/Fft.h"
 
 #include <algorithm>
+#include <complex>
+#include <map>
+#include <memory>
+#include <mutex>
+#include <tuple>
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -15,6 +20,46 @@ namespace {
 constexpr double kSqrt2 = 1.4142135623730951;
 
 std::string requestError(const std::string& what) { return "spectrum: " + what; }
+
+// A window prepared for averaging: its samples, sums and the leading lines of its own DFT.
+// Removing a segment's mean m after the transform, X[k] -= m W[k], is exact (the DFT is linear)
+// and saves a pass over the data: W[k] of a cosine-sum window vanishes beyond a few lines, so
+// only the lines where |W[k]| exceeds 1e-13 S1 are kept.
+struct PreparedWindow {
+    std::shared_ptr<const std::vector<double>> samples;
+    double s1 = 0, s2 = 0;
+    std::vector<std::complex<double>> dftHead;
+};
+
+std::shared_ptr<const PreparedWindow> preparedWindow(const WindowSpec& spec, std::size_t n) {
+    using Key = std::tuple<int, double, std::size_t>;
+    static std::mutex mutex;
+    static std::map<Key, std::shared_ptr<const PreparedWindow>> cache;
+    const Key key{static_cast<int>(spec.kind), spec.kind == WindowKind::Kaiser ? spec.kaiserBeta : 0.0, n};
+    {
+        std::lock_guard lock(mutex);
+        if (auto it = cache.find(key); it != cache.end()) return it->second;
+    }
+    auto p = std::make_shared<PreparedWindow>();
+    p->samples = cachedWindow(spec, n);
+    const auto& w = *p->samples;
+    for (double v : w) {
+        p->s1 += v;
+        p->s2 += v * v;
+    }
+    RealFft<double> fft(n);
+    std::copy(w.begin(), w.end(), fft.input().begin());
+    fft.execute();
+    const auto out = fft.output();
+    std::size_t last = 0;
+    for (std::size_t k = 0; k < out.size(); ++k)
+        if (std::abs(out[k]) > 1e-13 * p->s1) last = k;
+    p->dftHead.assign(out.begin(), out.begin() + static_cast<std::ptrdiff_t>(last + 1));
+    std::lock_guard lock(mutex);
+    if (cache.size() >= 256) cache.clear();
+    cache.emplace(key, p);
+    return p;
+}
 
 Result<std::size_t, AnalysisError> chooseSegmentLength(std::size_t available, double fs, const SpectrumRequest& r,
                                                        double fmax) {
@@ -100,26 +145,36 @@ Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, doub
     const std::size_t available = 1 + (x.size() - n) / step;
     const std::size_t averages = r.averages ? wantedAverages : available;
 
-    const std::vector<double> w = makeWindow(r.window, n);
-    double s1 = 0, s2 = 0;
-    for (double v : w) {
-        s1 += v;
-        s2 += v * v;
-    }
+    const auto prepared = preparedWindow(r.window, n);
+    const std::vector<double>& w = *prepared->samples;
+    const double s1 = prepared->s1, s2 = prepared->s2;
+    const auto& head = prepared->dftHead;
     RealFft<double> fft(n);
     const std::size_t bins = n / 2 + 1;
     std::vector<double> power(bins, 0.0);
     auto in = fft.input();
+    const double invN = 1.0 / static_cast<double>(n);
     for (std::size_t a = 0; a < averages; ++a) {
         const double* seg = x.data() + a * step;
-        double mean = 0;
-        if (r.removeMean) {
-            for (std::size_t i = 0; i < n; ++i) mean += seg[i];
-            mean /= static_cast<double>(n);
+        // Four partial sums break the serial dependency of one accumulator (about 4x faster).
+        double part[4] = {0, 0, 0, 0};
+        std::size_t i = 0;
+        for (; i + 4 <= n; i += 4)
+            for (std::size_t j = 0; j < 4; ++j) {
+                part[j] += seg[i + j];
+                in[i + j] = seg[i + j] * w[i + j];
+            }
+        for (; i < n; ++i) {
+            part[0] += seg[i];
+            in[i] = seg[i] * w[i];
         }
-        for (std::size_t i = 0; i < n; ++i) in[i] = (seg[i] - mean) * w[i];
+        const double sum = (part[0] + part[1]) + (part[2] + part[3]);
         fft.execute();
-        const auto out = fft.output();
+        auto out = fft.output();
+        if (r.removeMean) {
+            const double mean = sum * invN;
+            for (std::size_t k = 0; k < head.size() && k < bins; ++k) out[k] -= mean * head[k];
+        }
         for (std::size_t k = 0; k < bins; ++k) power[k] += std::norm(out[k]);
     }
 

@@ -8,6 +8,9 @@
 #include <cctype>
 #include <cmath>
 #include <cstdio>
+#include <map>
+#include <mutex>
+#include <tuple>
 #include <span>
 #include <numbers>
 #include <stdexcept>
@@ -135,6 +138,19 @@ std::vector<double> makeWindow(const WindowSpec& spec, std::size_t n, WindowSymm
     return w;
 }
 
+std::shared_ptr<const std::vector<double>> cachedWindow(const WindowSpec& spec, std::size_t n) {
+    using Key = std::tuple<int, double, std::size_t>;
+    static std::mutex mutex;
+    static std::map<Key, std::shared_ptr<const std::vector<double>>> cache;
+    const Key key{static_cast<int>(spec.kind), spec.kind == WindowKind::Kaiser ? spec.kaiserBeta : 0.0, n};
+    std::lock_guard lock(mutex);
+    if (auto it = cache.find(key); it != cache.end()) return it->second;
+    if (cache.size() >= 256) cache.clear(); // bounded: a route uses a handful of lengths
+    auto w = std::make_shared<const std::vector<double>>(makeWindow(spec, n));
+    cache.emplace(key, w);
+    return w;
+}
+
 double windowResponse(const std::vector<double>& w, double offsetBins) {
     const double n = static_cast<double>(w.size());
     double re = 0, im = 0, s1 = 0;
@@ -173,8 +189,10 @@ WindowMetrics computeWindowMetrics(const std::vector<double>& w, std::size_t pad
     std::vector<double> mag(out.size());
     for (std::size_t j = 0; j < out.size(); ++j) mag[j] = std::abs(out[j]) / s1;
 
-    // Main lobe ends at the first local minimum; the highest sidelobe is the maximum beyond it.
-    std::size_t j = 1;
+    // Main lobe ends at the first local minimum past its peak (a flat-top's response rises by a
+    // few thousandths of a dB before it falls); the highest sidelobe is the maximum beyond it.
+    std::size_t j = static_cast<std::size_t>(
+        std::max_element(mag.begin(), mag.begin() + static_cast<std::ptrdiff_t>(padFactor)) - mag.begin());
     while (j + 1 < mag.size() && mag[j + 1] <= mag[j]) ++j;
     const double sidelobe = *std::max_element(mag.begin() + static_cast<std::ptrdiff_t>(j), mag.end());
     m.highestSidelobeDb = 20.0 * std::log10(sidelobe);

@@ -20,6 +20,7 @@
 // are divided by that); spectra use the window sums S1 and S2, so the normalisation cancels.
 
 #include <cstddef>
+#include <memory>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -42,6 +43,10 @@ std::string windowName(const WindowSpec& spec); // "hann", "kaiser:9.425", ...
 
 std::vector<double> makeWindow(const WindowSpec& spec, std::size_t n,
                                WindowSymmetry symmetry = WindowSymmetry::Periodic);
+
+// The same window from a small process-wide cache (thread-safe), for hot paths that ask for the
+// same window again and again (every spectrum of a route uses a handful of lengths).
+std::shared_ptr<const std::vector<double>> cachedWindow(const WindowSpec& spec, std::size_t n);
 
 // Modified Bessel function of the first kind, order 0 (power series; relative error < 1e-15
 // for the arguments windows use).

@@ -1,0 +1,135 @@
+// Envelope analysis and the fast kurtogram on signals with known answers.
+// AM check values: REFERENCE.md 8.1 (computed there with scipy.signal.hilbert):
+// x = (1 + 0.5 cos(2 pi 37 t)) cos(2 pi 3000 t), fs 20 kHz, 1 s -> squared-envelope spectrum
+// 1.000 at 37 Hz (2m) and 0.125 at 74 Hz (m^2/2); plain envelope 0.500 at 37 Hz (m).
+#include "core/dsp/Envelope.h"
+#include "core/dsp/Peaks.h"
+#include "support/TestSupport.h"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <numbers>
+#include <random>
+
+namespace humwise::dsp {
+namespace {
+
+using std::numbers::pi;
+
+std::vector<double> amSignal() {
+    const double fs = 20000;
+    std::vector<double> x(20000);
+    for (std::size_t n = 0; n < x.size(); ++n) {
+        const double t = static_cast<double>(n) / fs;
+        x[n] = (1.0 + 0.5 * std::cos(2 * pi * 37 * t)) * std::cos(2 * pi * 3000 * t);
+    }
+    return x;
+}
+
+EnvelopeRequest bandRequest(bool squared) {
+    EnvelopeRequest r;
+    r.bandLowHz = 2000;
+    r.bandHighHz = 4000;
+    r.squared = squared;
+    r.spectrum.resolutionHz = 1.0;
+    r.spectrum.fmaxHz = 200;
+    r.spectrum.scale = SpectrumScale::Peak;
+    r.spectrum.window = {WindowKind::Rectangular};
+    return r;
+}
+
+TEST(Envelope, AmplitudeModulationGivesTheKnownLines) {
+    const auto x = amSignal();
+    const auto sq = envelopeSpectrum(x, 20000, bandRequest(true));
+    ASSERT_TRUE(sq.ok()) << sq.error().message;
+    EXPECT_NEAR(sq.value().spectrum.values[37], 1.000, 1e-3);
+    EXPECT_NEAR(sq.value().spectrum.values[74], 0.125, 1e-3);
+    const auto plain = envelopeSpectrum(x, 20000, bandRequest(false));
+    ASSERT_TRUE(plain.ok());
+    EXPECT_NEAR(plain.value().spectrum.values[37], 0.500, 1e-3);
+    EXPECT_LT(plain.value().spectrum.values[74], 1e-3);
+    EXPECT_GE(sq.value().envelopeRateHz, 2 * (4000 - 2000)); // |z|^2 spans the band width: no aliasing
+}
+
+TEST(Envelope, BandOutsideNyquistIsRefused) {
+    const auto x = amSignal();
+    auto r = bandRequest(true);
+    r.bandHighHz = 15000;
+    EXPECT_EQ(envelopeSpectrum(x, 20000, r).error().code, AnalysisError::Code::InvalidRequest);
+    EXPECT_EQ(envelopeSpectrum(std::vector<double>(10, 0.0), 20000, bandRequest(true)).error().code,
+              AnalysisError::Code::RecordTooShort);
+}
+
+// Bearing-like impacts (repetition 97 Hz with 1 % random jitter) ringing a 3.2 kHz resonance, in
+// Gaussian noise, with a strong 1X tone: the kurtogram must pick a band around the resonance and
+// the envelope spectrum must show 97 Hz as its strongest line.
+TEST(Envelope, KurtogramFindsTheResonanceOfRepeatedImpacts) {
+    const double fs = 25600, fFault = 97.0, fRes = 3200.0;
+    const std::size_t n = 25600 * 4;
+    std::vector<double> x = test::gaussianNoise(0.3, n, 21);
+    test::add(x, test::sine(2.0, 24.6, fs, n));
+    std::mt19937_64 rng(5);
+    std::normal_distribution<double> jitter(0.0, 0.01 / fFault);
+    for (double t0 = 0.005; t0 < static_cast<double>(n) / fs; t0 += 1.0 / fFault + jitter(rng)) {
+        const auto start = static_cast<std::size_t>(t0 * fs);
+        for (std::size_t i = 0; i < 400 && start + i < n; ++i) {
+            const double t = static_cast<double>(i) / fs;
+            x[start + i] += 1.5 * std::exp(-t * 800.0) * std::sin(2 * pi * fRes * t);
+        }
+    }
+    EnvelopeRequest r;
+    r.autoBand = true;
+    r.kurtogram.minBandwidthHz = 500;
+    r.spectrum.fmaxHz = 500;
+    const auto e = envelopeSpectrum(x, fs, r);
+    ASSERT_TRUE(e.ok()) << e.error().message;
+    ASSERT_TRUE(e.value().kurtogram.has_value());
+    EXPECT_LE(e.value().bandLowHz, fRes);
+    EXPECT_GE(e.value().bandHighHz, fRes);
+    EXPECT_GT(e.value().kurtogram->best.kurtosis, 1.0);
+    const auto peaks = findPeaks(e.value().spectrum, {.maxPeaks = 1, .minFrequencyHz = 20});
+    ASSERT_EQ(peaks.size(), 1u);
+    EXPECT_NEAR(peaks[0].frequencyHz, fFault, 0.01 * fFault);
+}
+
+// Antoni 2007: Gaussian noise has SK near 0 in every band, a pure tone -1.
+TEST(Kurtogram, NoiseIsNearZeroAndATonesBandIsNegative) {
+    const double fs = 16384;
+    const auto noise = test::gaussianNoise(1.0, 65536, 8);
+    const auto k = fastKurtogram(RecordSpectrum(noise, fs));
+    // The estimate's spread is about 2 / sqrt(B T) for a band of width B over T seconds: judge the
+    // wide bands (B T >= 2048) one by one and the whole grid on average.
+    double sum = 0;
+    for (const auto& c : k.cells) {
+        sum += c.kurtosis;
+        if (c.bandwidthHz() * 4.0 >= 2048) EXPECT_LT(std::abs(c.kurtosis), 0.25) << c.loHz << "-" << c.hiHz << " level " << c.level;
+    }
+    EXPECT_LT(std::abs(sum / static_cast<double>(k.cells.size())), 0.1);
+    const auto tone = test::sine(1.0, 1500.0, fs, 65536);
+    KurtogramRequest narrow;
+    narrow.maxLevel = 3;
+    const auto kt = fastKurtogram(RecordSpectrum(tone, fs), narrow);
+    bool found = false;
+    for (const auto& c : kt.cells)
+        if (c.loHz < 1450 && c.hiHz > 1550 && c.level == 3) {
+            EXPECT_NEAR(c.kurtosis, -1.0, 0.05);
+            found = true;
+        }
+    EXPECT_TRUE(found);
+}
+
+TEST(Kurtogram, GridFollowsTheOneThirdBinaryTree) {
+    const auto noise = test::gaussianNoise(1.0, 8192, 9);
+    KurtogramRequest r;
+    r.maxLevel = 2;
+    r.minRelativeDensityDb = -1000;
+    const auto k = fastKurtogram(RecordSpectrum(noise, 8192), r);
+    // Levels 0 (1 band), 1 (2), 1.585 (3), 2 (4): 10 cells.
+    EXPECT_EQ(k.cells.size(), 10u);
+    EXPECT_NEAR(k.cells[3].level, std::log2(3.0) + 0.0, 1e-12);
+    EXPECT_NEAR(k.cells[3].bandwidthHz(), 4096.0 / 3.0, 1e-9);
+}
+
+} // namespace
+} // namespace humwise::dsp

@@ -1,0 +1,68 @@
+// Zoom spectrum for motor-current work: two tones 0.05 Hz apart near 50 Hz and 60 dB apart in
+// level, from a 100 s record (0.01 Hz lines), both resolved and measured within 0.5 dB (the
+// foundation issue's target; Blackman-Harris sidelobes -92 dB per Harris 1978).
+#include "core/dsp/Peaks.h"
+#include "core/dsp/Zoom.h"
+#include "support/TestSupport.h"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+namespace humwise::dsp {
+namespace {
+
+double db(double v) { return 20.0 * std::log10(v); }
+
+TEST(Zoom, ResolvesTwoTones60dBApartAndFiveHundredthsOfAHertz) {
+    const double fs = 1000.0;
+    const std::size_t n = 100'000; // 100 s
+    const double fStrong = 50.0031, fWeak = 50.0531, aStrong = 10.0, aWeak = 10.0e-3;
+    auto x = test::sine(aStrong, fStrong, fs, n, 0.2);
+    test::add(x, test::sine(aWeak, fWeak, fs, n, 1.1));
+    test::add(x, test::gaussianNoise(1e-6, n, 3));
+    ZoomRequest r;
+    r.centreHz = 50.0;
+    r.spanHz = 2.0;
+    r.scale = SpectrumScale::Peak;
+    const auto s = zoomSpectrum(x, fs, r);
+    ASSERT_TRUE(s.ok()) << s.error().message;
+    EXPECT_NEAR(s.value().resolutionHz, 0.01, 1e-12);
+    const auto peaks = findPeaks(s.value(), {.maxPeaks = 2});
+    ASSERT_EQ(peaks.size(), 2u);
+    EXPECT_NEAR(peaks[0].frequencyHz, fStrong, 0.001);
+    EXPECT_NEAR(peaks[1].frequencyHz, fWeak, 0.002);
+    EXPECT_NEAR(db(peaks[0].amplitude), db(aStrong), 0.5);
+    EXPECT_NEAR(db(peaks[1].amplitude), db(aWeak), 0.5);
+}
+
+TEST(Zoom, ZeroPaddingGivesFinerLinesWithTheSameAmplitudes) {
+    const double fs = 1000.0;
+    const auto x = test::sine(1.0, 59.987, fs, 20'000); // 20 s
+    ZoomRequest r;
+    r.centreHz = 60.0;
+    r.spanHz = 1.0;
+    r.resolutionHz = 0.01;
+    r.scale = SpectrumScale::Peak;
+    const auto s = zoomSpectrum(x, fs, r).value();
+    EXPECT_LE(s.resolutionHz, 0.01);
+    EXPECT_GT(s.transformLength, s.segmentLength);
+    const auto p = findPeaks(s, {.maxPeaks = 1});
+    ASSERT_EQ(p.size(), 1u);
+    EXPECT_NEAR(p[0].frequencyHz, 59.987, 0.002);
+    EXPECT_NEAR(p[0].amplitude, 1.0, 0.005);
+}
+
+TEST(Zoom, BadBandsAreRefused) {
+    const auto x = test::sine(1.0, 50, 1000.0, 10000);
+    ZoomRequest r;
+    r.centreHz = 499;
+    r.spanHz = 10;
+    EXPECT_EQ(zoomSpectrum(x, 1000.0, r).error().code, AnalysisError::Code::InvalidRequest);
+    r.centreHz = 50;
+    r.spanHz = 0;
+    EXPECT_EQ(zoomSpectrum(x, 1000.0, r).error().code, AnalysisError::Code::InvalidRequest);
+}
+
+} // namespace
+} // namespace humwise::dsp
