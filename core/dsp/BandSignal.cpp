@@ -43,7 +43,11 @@ BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz,
     for (std::size_t i = 0; i < width; ++i) {
         const double edge = std::min(static_cast<double>(i), static_cast<double>(width - 1 - i));
         const double t = (taper > 0 && edge < taper) ? 0.5 - 0.5 * std::cos(std::numbers::pi * (edge + 0.5) / taper) : 1.0;
-        data[i] = bins[kl + i] * (scale * t);
+        // The analytic signal weights DC and (even N) the Nyquist line by 1/N, the others by 2/N
+        // (Marple 1999, "Computing the discrete-time analytic signal via FFT").
+        const std::size_t k = kl + i;
+        const bool outerLine = k == 0 || (spectrum.length() % 2 == 0 && k == spectrum.length() / 2);
+        data[i] = bins[k] * ((outerLine ? 0.5 * scale : scale) * t);
     }
     inverse.execute();
     BandSignal out;

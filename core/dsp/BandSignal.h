@@ -6,7 +6,8 @@
 // one-sided lines of the band [lo, hi] (cosine-tapered over 10 % of the band at each edge),
 // shift them down to start at 0 Hz and inverse-transform a short length M. The result is the
 // analytic band signal, demodulated by lo and decimated to M fs / N without aliasing.
-// Scaling: z[m] = (2 / N) sum_i T_i X[k_lo + i] exp(+j 2 pi i m / M), so |z| of
+// Scaling: z[m] = (2 / N) sum_i T_i X[k_lo + i] exp(+j 2 pi i m / M) (1 / N for the DC and
+// Nyquist lines, as in Marple's analytic signal), so |z| of
 // A cos(2 pi f t + phi) with f inside the band is A (its amplitude envelope).
 
 #include <complex>
