@@ -153,7 +153,18 @@ int runSpectrum(const std::vector<std::string>& args, std::ostream& out) {
 
     Computed c = compute(a, ch, rec.sampleRateHz);
     dsp::Spectrum& s = c.spectrum;
-    if (target != s.quantity) dsp::convertSpectrum(s, target, cutoff);
+    // Peaks are found and interpolated on the spectrum as measured, then converted line by line
+    // (Integration.h explains why), and finally put in the display unit with the spectrum.
+    dsp::PeakRequest pr;
+    pr.maxPeaks = static_cast<std::size_t>(peakCount) * 2; // some may fall below the cut-off
+    auto peaks = dsp::findPeaks(s, pr);
+    if (target != s.quantity) {
+        for (auto& p : peaks) p.amplitude = dsp::convertLine(p.amplitude, p.frequencyHz, s.quantity, target, s.scale, cutoff);
+        std::erase_if(peaks, [](const dsp::Peak& p) { return p.amplitude <= 0; });
+        std::sort(peaks.begin(), peaks.end(), [](const dsp::Peak& x, const dsp::Peak& y) { return x.amplitude > y.amplitude; });
+        dsp::convertSpectrum(s, target, cutoff);
+    }
+    if (peaks.size() > static_cast<std::size_t>(peakCount)) peaks.resize(static_cast<std::size_t>(peakCount));
 
     // Overall level in the band, from the SI spectrum.
     std::pair<double, double> band{s.frequencyHz(0) + (c.kind == Kind::Zoom ? 0.0 : s.resolutionHz), s.frequencyHz(s.lineCount() - 1)};
@@ -170,14 +181,11 @@ int runSpectrum(const std::vector<std::string>& args, std::ostream& out) {
     const int power = (c.squaredEnvelope ? 2 : 1) * (s.scale == dsp::SpectrumScale::Psd ? 2 : 1);
     const double k = std::pow(perUnit, power);
     for (double& v : s.values) v *= k;
+    for (auto& p : peaks) p.amplitude *= k;
     std::string unitLabel(unitSymbol(unit));
     if (c.squaredEnvelope) unitLabel += "^2";
     if (s.scale == dsp::SpectrumScale::Psd) unitLabel = "(" + unitLabel + ")^2/Hz";
     const double overall = overallSi * std::pow(perUnit, c.squaredEnvelope ? 2 : 1);
-
-    dsp::PeakRequest pr;
-    pr.maxPeaks = static_cast<std::size_t>(peakCount);
-    const auto peaks = dsp::findPeaks(s, pr);
 
     if (a.has("csv")) {
         out << "frequency_hz,amplitude\n";

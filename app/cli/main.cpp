@@ -2,6 +2,7 @@
 // the file and the problem), 2 usage error.
 
 #include "app/cli/CliError.h"
+#include "app/cli/FaultsCommand.h"
 #include "app/cli/InspectCommand.h"
 #include "app/cli/SpectrumCommand.h"
 
@@ -25,6 +26,13 @@ Commands:
            [--envelope-squared] [--peaks N] [--full] [--json|--csv]
       Averaged (Welch), envelope or zoom spectrum of one channel, its strongest peaks and
       the overall RMS level in a band.
+  faults --line-hz F --poles P [--speed-rpm N | --slip S] [--rated-rpm N] [--rotor-bars R]
+         [--bearing n=..,d=..,D=..[,angle=DEG] | --bearing-factors BPFO=..,BPFI=..,BSF=..,FTF=..]
+         [--vanes N] [--json]
+      The fault-frequency table: running-speed harmonics, line and pole-pass lines, bearing
+      defect lines (d and D in one unit of length; factors in multiples of shaft frequency,
+      BSF as single spin), broken-bar, eccentricity, slot-harmonic, shorted-turn and bearing
+      components of the stator current.
 
 Files: WAV (PCM 8/16/24/32-bit, float 32/64, extensible) and CSV (see README.md).
 A WAV carries no unit: --quantity (default acceleration) and --input-unit (default g for
@@ -54,6 +62,7 @@ int main(int argc, char** argv) {
         }
         if (command == "inspect") return runInspect(args, std::cout);
         if (command == "spectrum") return runSpectrum(args, std::cout);
+        if (command == "faults") return runFaults(args, std::cout);
         throw UsageError("unknown command '" + command + "'");
     } catch (const UsageError& e) {
         std::cerr << "humwise-cli: usage error: " << e.what() << "\n(run 'humwise-cli --help' for the commands and options)\n";

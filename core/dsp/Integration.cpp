@@ -26,18 +26,18 @@ int motionOrder(Quantity q) {
 
 int integrationSteps(Quantity from, Quantity to) { return motionOrder(from) - motionOrder(to); }
 
+double convertLine(double value, double f, Quantity from, Quantity to, SpectrumScale scale, double cutoffHz) {
+    const int steps = integrationSteps(from, to);
+    if (steps == 0) return value;
+    if (f < cutoffHz || f <= 0) return 0.0;
+    const double power = scale == SpectrumScale::Psd ? 2.0 * steps : static_cast<double>(steps);
+    return value / std::pow(2.0 * std::numbers::pi * f, power);
+}
+
 void convertSpectrum(Spectrum& s, Quantity to, double cutoffHz) {
-    const int steps = integrationSteps(s.quantity, to);
-    if (steps == 0) return;
-    const double power = s.scale == SpectrumScale::Psd ? 2.0 * steps : static_cast<double>(steps);
-    for (std::size_t k = 0; k < s.values.size(); ++k) {
-        const double f = s.frequencyHz(k);
-        if (f < cutoffHz || f <= 0) {
-            s.values[k] = 0.0;
-            continue;
-        }
-        s.values[k] /= std::pow(2.0 * std::numbers::pi * f, power);
-    }
+    if (integrationSteps(s.quantity, to) == 0) return;
+    for (std::size_t k = 0; k < s.values.size(); ++k)
+        s.values[k] = convertLine(s.values[k], s.frequencyHz(k), s.quantity, to, s.scale, cutoffHz);
     s.quantity = to;
 }
 

@@ -22,7 +22,14 @@ inline constexpr double kDefaultIntegrationCutoffHz = 2.0;
 // std::invalid_argument for quantities that are not motion (current, voltage).
 int integrationSteps(Quantity from, Quantity to);
 
+// Converts one spectrum value (or an interpolated peak) at `frequencyHz` from one motion
+// quantity to another; 0 below the cut-off. PSD values convert with the square of the factor.
+double convertLine(double value, double frequencyHz, Quantity from, Quantity to, SpectrumScale scale,
+                   double cutoffHz = kDefaultIntegrationCutoffHz);
+
 // Converts a spectrum in place to `to` (values stay in SI units of the new quantity).
+// Interpolate peaks before converting: dividing by 2 pi f skews a peak's shape, so the
+// window-matched interpolation of Peaks.h would place it off its true frequency.
 void convertSpectrum(Spectrum& s, Quantity to, double cutoffHz = kDefaultIntegrationCutoffHz);
 
 // Converts a waveform by the same rule through one FFT of the whole record (mean removed,

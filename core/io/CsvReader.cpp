@@ -76,7 +76,7 @@ Result<Recording, ReadError> parseCsv(std::string_view text, const std::string& 
     std::vector<Column> columns;
     char delimiter = ',';
     std::vector<std::vector<double>> data;
-    std::vector<double> times;
+    std::vector<std::size_t> rowLines; // file line of each data row, for messages
     std::size_t lineNo = 0, headerLine = 0;
     std::size_t pos = 0;
     while (pos < text.size()) {
@@ -137,6 +137,7 @@ Result<Recording, ReadError> parseCsv(std::string_view text, const std::string& 
                 return fail(lineError(Code::BadNumber, source, lineNo, "column " + std::to_string(i + 1) + " ('" + columns[i].name + "'): '" + std::string(field.substr(0, 40)) + "' is not a number"));
             data[i].push_back(*v);
         }
+        rowLines.push_back(lineNo);
     }
     if (columns.empty()) return fail(ReadError{Code::BadHeader, source, {}, {}, "no header line with column names"});
     const auto timeIt = std::find_if(columns.begin(), columns.end(), [](const Column& c) { return c.isTime; });
@@ -150,14 +151,18 @@ Result<Recording, ReadError> parseCsv(std::string_view text, const std::string& 
         const std::size_t ti = static_cast<std::size_t>(timeIt - columns.begin());
         const auto& t = data[ti];
         if (rows < 2) return fail(lineError(Code::NoData, source, headerLine, "one row is not enough to know the sample rate"));
-        for (double v : t)
-            if (!std::isfinite(v)) return fail(lineError(Code::BadNumber, source, headerLine, "the time column holds NaN or infinity"));
+        for (std::size_t i = 0; i < rows; ++i)
+            if (!std::isfinite(t[i])) return fail(lineError(Code::BadNumber, source, rowLines[i], "the time column holds NaN or infinity"));
         const double step = (t.back() - t.front()) / static_cast<double>(rows - 1);
-        if (!(step > 0)) return fail(lineError(Code::NonUniformTime, source, headerLine + 1, "time does not increase"));
+        if (!(step > 0)) {
+            std::size_t first = 1;
+            while (first + 1 < rows && t[first] > t[first - 1]) ++first;
+            return fail(lineError(Code::NonUniformTime, source, rowLines[first], "time does not increase"));
+        }
         for (std::size_t i = 1; i < rows; ++i) {
             const double d = t[i] - t[i - 1];
             if (!(d > 0) || std::abs(d - step) > 0.5 * step)
-                return fail(lineError(Code::NonUniformTime, source, headerLine + 1 + i,
+                return fail(lineError(Code::NonUniformTime, source, rowLines[i],
                                       fmt("time step %.6g s where the mean step is %.6g s (gap, jump or not increasing)", d * timeIt->timeFactor, step * timeIt->timeFactor)));
         }
         rate = 1.0 / (step * timeIt->timeFactor);

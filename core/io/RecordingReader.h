@@ -1,6 +1,7 @@
 #pragma once
-// Reads a recording file of any format Humwise knows, choosing the reader by content:
-// a RIFF/WAVE signature means WAV; otherwise a file named *.csv or *.txt is read as CSV;
+// Reads a recording file of any format Humwise knows, choosing the reader by content first:
+// a file that starts with RIFF (or RF64/RIFX, which the WAV reader then refuses by name) or is
+// named *.wav goes to the WAV reader; otherwise a file named *.csv or *.txt is read as CSV;
 // anything else is refused with a message naming the file.
 
 #include "core/io/CsvReader.h"
