@@ -126,10 +126,12 @@ int runSpectrum(const std::vector<std::string>& args, std::ostream& out) {
     for (const char* name : {"window", "lines", "resolution", "fmax", "averages", "overlap", "scale", "as", "unit", "zoom",
                              "envelope", "peaks", "band", "cutoff"})
         specs.push_back({name});
-    for (const char* flag : {"full", "json", "csv", "envelope-squared"}) specs.push_back({flag, false});
+    for (const char* flag : {"full", "json", "csv", "envelope-squared", "db"}) specs.push_back({flag, false});
     const ParsedArgs a(args, specs);
     if (a.has("json") && a.has("csv")) throw UsageError("give either --json or --csv, not both");
     if (a.has("envelope-squared") && !a.has("envelope")) throw UsageError("--envelope-squared goes with --envelope");
+    if (a.has("db") && a.has("envelope-squared")) throw UsageError("--db does not apply to a squared envelope");
+    if (a.has("db") && a.has("unit")) throw UsageError("--db and --unit exclude each other (dB use the ISO 1683 reference)");
     const long long peakCount = a.integer("peaks").value_or(10);
     if (peakCount < 0 || peakCount > 10000) throw UsageError("--peaks must be between 0 and 10000");
     const double cutoff = a.number("cutoff", dsp::kDefaultIntegrationCutoffHz);
@@ -176,16 +178,27 @@ int runSpectrum(const std::vector<std::string>& args, std::ostream& out) {
     }
     const double overallSi = dsp::bandRms(s, band.first, band.second);
 
-    // Display units: amplitudes scale by 1/factor, squared envelopes and PSD by its powers.
-    const double perUnit = 1.0 / toSiFactor(unit);
-    const int power = (c.squaredEnvelope ? 2 : 1) * (s.scale == dsp::SpectrumScale::Psd ? 2 : 1);
-    const double k = std::pow(perUnit, power);
-    for (double& v : s.values) v *= k;
-    for (auto& p : peaks) p.amplitude *= k;
+    // Display: dB re the ISO 1683 reference of the quantity (Units.h), or the display unit, in
+    // which amplitudes scale by 1/factor and squared envelopes and PSD by its powers.
     std::string unitLabel(unitSymbol(unit));
-    if (c.squaredEnvelope) unitLabel += "^2";
-    if (s.scale == dsp::SpectrumScale::Psd) unitLabel = "(" + unitLabel + ")^2/Hz";
-    const double overall = overallSi * std::pow(perUnit, c.squaredEnvelope ? 2 : 1);
+    if (a.has("db")) {
+        const double ref = levelReference(target);
+        for (double& v : s.values) v = dsp::toDb(v, s.scale, ref);
+        for (auto& p : peaks) p.amplitude = dsp::toDb(p.amplitude, s.scale, ref);
+        char label[64];
+        std::snprintf(label, sizeof label, "dB re %g %s%s", ref, std::string(unitSymbol(siUnitOf(target))).c_str(),
+                      s.scale == dsp::SpectrumScale::Psd ? " per Hz" : "");
+        unitLabel = label;
+    } else {
+        const double perUnit = 1.0 / toSiFactor(unit);
+        const int power = (c.squaredEnvelope ? 2 : 1) * (s.scale == dsp::SpectrumScale::Psd ? 2 : 1);
+        const double k = std::pow(perUnit, power);
+        for (double& v : s.values) v *= k;
+        for (auto& p : peaks) p.amplitude *= k;
+        if (c.squaredEnvelope) unitLabel += "^2";
+        if (s.scale == dsp::SpectrumScale::Psd) unitLabel = "(" + unitLabel + ")^2/Hz";
+    }
+    const double overall = overallSi * std::pow(1.0 / toSiFactor(unit), c.squaredEnvelope ? 2 : 1);
 
     if (a.has("csv")) {
         out << "frequency_hz,amplitude\n";

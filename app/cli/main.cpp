@@ -23,9 +23,10 @@ Commands:
            [--scale peak|rms|pp|psd] [--quantity acceleration|velocity|displacement|current|voltage]
            [--input-unit U] [--input-scale F] [--rate HZ] [--as velocity|displacement|acceleration]
            [--unit U] [--cutoff HZ] [--band LO:HI] [--zoom CENTRE:SPAN] [--envelope LO:HI|auto]
-           [--envelope-squared] [--peaks N] [--full] [--json|--csv]
+           [--envelope-squared] [--db] [--peaks N] [--full] [--json|--csv]
       Averaged (Welch), envelope or zoom spectrum of one channel, its strongest peaks and
-      the overall RMS level in a band.
+      the overall RMS level in a band. --db gives levels in dB re the ISO 1683 references
+      (1 um/s^2, 1 nm/s, 1 pm; 1 A and 1 V for current and voltage).
   faults --line-hz F --poles P [--speed-rpm N | --slip S] [--rated-rpm N] [--rotor-bars R]
          [--bearing n=..,d=..,D=..[,angle=DEG] | --bearing-factors BPFO=..,BPFI=..,BSF=..,FTF=..]
          [--vanes N] [--json]

@@ -398,3 +398,20 @@ TEST(Cli, EnvelopeAutoFindsTheOuterRaceLineInCwruRecord130) {
 
 } // namespace
 } // namespace humwise::cli
+
+namespace humwise::cli {
+namespace {
+
+// REFERENCE.md 7: 1 g rms = 139.83 dB re 1 um/s^2 (ISO 1683 reference).
+TEST(Cli, SpectrumInDecibelsUsesTheIso1683Reference) {
+    const auto path = writeFloatWav("one-g-rms.wav", test::sine(std::sqrt(2.0), 100.0, 25600.0, 25600 * 2), 25600);
+    const CliRun r = runCli({"spectrum", path.string(), "--db", "--window", "flattop", "--json"});
+    ASSERT_EQ(r.exitCode, kOk) << describe(r);
+    const auto j = parseJson(r);
+    EXPECT_NEAR(j["peaks"].at(0)["amplitude"].number(), 139.83, 0.01);
+    EXPECT_TRUE(contains(j["unit"].string(), "dB re 1e-06 m/s^2")) << j["unit"].string();
+    EXPECT_EQ(runCli({"spectrum", path.string(), "--db", "--unit", "g"}).exitCode, kUsageError);
+}
+
+} // namespace
+} // namespace humwise::cli
