@@ -2,6 +2,7 @@
 // the file and the problem), 2 usage error.
 
 #include "app/cli/CliError.h"
+#include "app/cli/DiagnoseCommand.h"
 #include "app/cli/FaultsCommand.h"
 #include "app/cli/InspectCommand.h"
 #include "app/cli/SpectrumCommand.h"
@@ -34,6 +35,15 @@ Commands:
       defect lines (d and D in one unit of length; factors in multiples of shaft frequency,
       BSF as single spin), broken-bar, eccentricity, slot-harmonic, shorted-turn and bearing
       components of the stator current.
+  diagnose FILE [--channel N] [--quantity acceleration|velocity|current|voltage] [--input-unit U]
+           [--direction H|V|A[,...]] [--location DE|NDE[,...]] --line-hz F --poles P [--speed-rpm N]
+           [--rated-rpm N] [--rotor-bars R] [--bearing ... | --bearing-factors ...] [--vanes N]
+           [--machine-group 1|2] [--support rigid|flexible] [--power-off FILE] [--json]
+      Operating point (supply frequency, speed without a tachometer, slip, load), indicators and
+      findings with their evidence. Vibration channels are analysed one by one (--direction and
+      --location give each channel's, default H at DE); current or voltage channels are phases
+      A, B, C. The bearing given applies to both ends. --power-off names a recording made just
+      after the supply was cut: lines that vanish at once are electrical.
 
 Files: WAV (PCM 8/16/24/32-bit, float 32/64, extensible) and CSV (see README.md).
 A WAV carries no unit: --quantity (default acceleration) and --input-unit (default g for
@@ -64,6 +74,7 @@ int main(int argc, char** argv) {
         if (command == "inspect") return runInspect(args, std::cout);
         if (command == "spectrum") return runSpectrum(args, std::cout);
         if (command == "faults") return runFaults(args, std::cout);
+        if (command == "diagnose") return runDiagnose(args, std::cout);
         throw UsageError("unknown command '" + command + "'");
     } catch (const UsageError& e) {
         std::cerr << "humwise-cli: usage error: " << e.what() << "\n(run 'humwise-cli --help' for the commands and options)\n";

@@ -153,8 +153,10 @@ std::vector<Peak> findPeaks(const Spectrum& s, const PeakRequest& r) {
     if (n < 3 || r.maxPeaks == 0) return peaks;
     std::vector<std::size_t> candidates;
     for (std::size_t k = 1; k + 1 < n; ++k) {
+        // A tone inside the range may have its highest line just outside it: widen by one line
+        // here and judge the interpolated frequency below.
         const double f = s.frequencyHz(k);
-        if (f < r.minFrequencyHz || f > r.maxFrequencyHz) continue;
+        if (f < r.minFrequencyHz - s.resolutionHz || f > r.maxFrequencyHz + s.resolutionHz) continue;
         if (s.values[k] > s.values[k - 1] && s.values[k] >= s.values[k + 1] && s.values[k] > 0) candidates.push_back(k);
     }
     // Interpolate only the strongest candidates (each interpolation costs a few kernel evaluations).

@@ -36,7 +36,8 @@ struct PeakRequest {
     std::size_t floorHalfWidth = 25; // lines each side for the local-floor median
 };
 
-// Local maxima, strongest first (by interpolated amplitude).
+// Local maxima whose interpolated frequency lies in [minFrequencyHz, maxFrequencyHz], strongest
+// first (by interpolated amplitude).
 std::vector<Peak> findPeaks(const Spectrum& s, const PeakRequest& request = {});
 
 // Interpolated frequency and amplitude of the local maximum at `line` (which must be a

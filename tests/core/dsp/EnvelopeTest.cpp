@@ -103,7 +103,9 @@ TEST(Kurtogram, NoiseIsNearZeroAndATonesBandIsNegative) {
     double sum = 0;
     for (const auto& c : k.cells) {
         sum += c.kurtosis;
-        if (c.bandwidthHz() * 4.0 >= 2048) EXPECT_LT(std::abs(c.kurtosis), 0.25) << c.loHz << "-" << c.hiHz << " level " << c.level;
+        if (c.bandwidthHz() * 4.0 >= 2048) {
+            EXPECT_LT(std::abs(c.kurtosis), 0.25) << c.loHz << "-" << c.hiHz << " level " << c.level;
+        }
     }
     EXPECT_LT(std::abs(sum / static_cast<double>(k.cells.size())), 0.1);
     const auto tone = test::sine(1.0, 1500.0, fs, 65536);

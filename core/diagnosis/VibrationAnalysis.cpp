@@ -1,0 +1,54 @@
+#include "core/diagnosis/VibrationAnalysis.h"
+
+#include "core/dsp/Integration.h"
+
+#include <algorithm>
+#include <cmath>
+#include <stdexcept>
+
+namespace humwise::diagnosis {
+
+std::string VibrationProducts::label() const {
+    if (!input) return "?";
+    return input->name.empty() ? std::string(locationName(input->location)) + "-" + directionName(input->direction) : input->name;
+}
+
+VibrationProducts analyseVibration(const VibrationInput& in, double envelopeFmaxHz, bool slowMachine) {
+    if (in.quantity != Quantity::Acceleration && in.quantity != Quantity::Velocity)
+        throw std::invalid_argument("vibration channel '" + in.name + "' must be acceleration or velocity");
+    const double fs = in.sampleRateHz;
+    if (!(fs > 0) || in.samples.size() < static_cast<std::size_t>(fs * 0.5))
+        throw std::invalid_argument("vibration channel '" + in.name + "' is shorter than 0.5 s");
+    VibrationProducts p;
+    p.input = &in;
+    p.statistics = dsp::waveformStatistics(in.samples);
+
+    dsp::SpectrumRequest r;
+    r.window = {dsp::WindowKind::Hann};
+    r.resolutionHz = std::max(0.25, fs / static_cast<double>(in.samples.size()));
+    r.fmaxHz = std::min(fs / 2.56, 2000.0);
+    r.scale = dsp::SpectrumScale::Rms;
+    r.quantity = in.quantity;
+    auto s = dsp::averagedSpectrum(in.samples, fs, r);
+    if (!s.ok()) throw std::invalid_argument("vibration channel '" + in.name + "': " + s.error().message);
+    p.velocity = std::move(s).value();
+    dsp::convertSpectrum(p.velocity, Quantity::Velocity, 2.0);
+    p.isoBandLowHz = slowMachine ? 2.0 : 10.0;
+    p.isoBandHighHz = std::min(1000.0, p.velocity.frequencyHz(p.velocity.lineCount() - 1));
+    p.overallVelocityRms = dsp::bandRms(p.velocity, p.isoBandLowHz, p.isoBandHighHz);
+
+    if (in.quantity == Quantity::Acceleration && fs / 2 > 2 * envelopeFmaxHz) {
+        dsp::EnvelopeRequest e;
+        e.autoBand = true;
+        e.kurtogram.minBandwidthHz = envelopeFmaxHz;
+        e.kurtogram.maxFrequencyHz = fs / 2.0;
+        e.squared = true;
+        e.spectrum.fmaxHz = envelopeFmaxHz;
+        e.spectrum.scale = dsp::SpectrumScale::Rms;
+        auto env = dsp::envelopeSpectrum(in.samples, fs, e);
+        if (env.ok()) p.envelope = std::move(env).value();
+    }
+    return p;
+}
+
+} // namespace humwise::diagnosis
