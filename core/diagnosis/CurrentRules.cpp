@@ -142,8 +142,23 @@ std::vector<Finding> eccentricityRule(const PhaseSetProducts& c, const RuleConte
     if (lowerUsable) finding.evidence.push_back(currentLine("f - fr", lower, ref, c.name));
     finding.evidence.push_back(currentLine("f + fr", upper, ref, c.name));
     finding.evidence.push_back(valueEvidence("mean level of f -+ fr below f", db, "dB", c.name, limitFor(severity, t.eccentricityDb), t.eccentricityDb.source));
-    finding.explanation = fmt("Current lines at f -+ fr stand %.1f dB below the supply line: an uneven air gap that turns with the rotor "
-                              "(dynamic or mixed eccentricity - worn bearings, a bent shaft, a rotor off centre).", db);
+    // With the bar count known, the principal slot harmonic's n_d = +-1 neighbours (Nandi, Toliyat
+    // & Li 2005; REFERENCE.md 4) point to the dynamic part of the eccentricity.
+    int neighbours = 0;
+    if (ctx.motor.nameplate.rotorBars) {
+        const double r = *ctx.motor.nameplate.rotorBars, p = ctx.op.polePairs(), s = ctx.op.slip();
+        for (int nd : {-1, 1}) {
+            const double hz = f * ((r + nd) * (1 - s) / p + 1);
+            const auto line = readLine(c.wide, hz, lineTolerance(c.wide, hz) + 0.3, 4.0);
+            if (!line.found) continue;
+            ++neighbours;
+            finding.evidence.push_back(currentLine(fmt("slot-harmonic neighbour n_d = %+.0f (dynamic eccentricity)", nd), line, ref, c.name));
+        }
+    }
+    finding.explanation = fmt("Current lines at f -+ fr stand %.1f dB below the supply line: an uneven air gap that turns with the rotor (", db) +
+                          (neighbours > 0 ? std::string("dynamic eccentricity, confirmed by the slot-harmonic neighbours")
+                                          : std::string("dynamic or mixed eccentricity")) +
+                          " - worn bearings, a bent shaft, a rotor off centre). A purely static gap shows instead as 2x line frequency in vibration.";
     finding.action = "Check bearing wear and housing fits, shaft run-out and the air gap; compare with the vibration 1X and 2x line frequency.";
     return {finding};
 }

@@ -119,7 +119,7 @@ std::vector<Finding> unbalanceRule(const Channels& channels, const RuleContext& 
     e.thresholdSource = ctx.zones.source + " boundary applied to the 1X component (common practice)";
     f.evidence.push_back(e);
     f.evidence.push_back(lineEvidence("2X running speed", twoX, *ch, kMmPerM, "mm/s rms"));
-    f.explanation = fmt("1X carries %.0f %% of the vibration energy at %s", 100 * share) + ch->label() +
+    f.explanation = fmt("1X carries %.0f %% of the vibration energy at ", 100 * share) + ch->label() +
                     fmt(" (%.2f mm/s), 2X is %.0f %% of 1X", a1, 100 * ratio2) +
                     (axial ? fmt(" and axial 1X only %.0f %% of radial", 100 * axialRatio) : std::string()) +
                     ": the pattern of a heavy spot on the rotor.";
@@ -267,18 +267,20 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
             for (const auto& ch : channels) {
                 if (ch.input->location != where || !ch.envelope) continue;
                 const auto& env = ch.envelope->spectrum;
-                const auto isShaftHarmonic = [&](double hz) {
+                // A line on a running-speed harmonic belongs to the shaft, unless it sits closer to
+                // the defect line it was sought for (BPFI of 8-ball bearings falls near 5X).
+                const auto isShaftHarmonic = [&](double hz, double expected) {
                     const double n = std::round(hz / fr);
-                    return n >= 1 && std::abs(hz - n * fr) < 0.003 * hz + env.resolutionHz;
+                    return n >= 1 && std::abs(hz - n * fr) < 0.003 * hz + env.resolutionHz && std::abs(hz - n * fr) < std::abs(hz - expected);
                 };
                 const auto fundamental = readLine(env, f0, t.bearingTolerance * f0, 2.0);
-                if (!fundamental.found || isShaftHarmonic(fundamental.measuredHz)) continue;
+                if (!fundamental.found || isShaftHarmonic(fundamental.measuredHz, f0)) continue;
                 if (fundamental.prominence < t.bearingProminence.watch || fundamental.prominence <= bestProminence) continue;
                 // Harmonics, at the measured spacing (real lines sit a little off the kinematic ones).
                 std::vector<LineReading> harmonics;
                 for (int h = 2; h <= 3; ++h) {
                     const auto r = readLine(env, h * fundamental.measuredHz, t.bearingTolerance * f0, 3.0);
-                    if (r.found && !isShaftHarmonic(r.measuredHz)) harmonics.push_back(r);
+                    if (r.found && !isShaftHarmonic(r.measuredHz, h * f0)) harmonics.push_back(r);
                 }
                 std::vector<LineReading> sidebands;
                 if (d.sidebandName)
@@ -328,9 +330,10 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
             }
             if (bestProminence > 0 && best.severity >= 1) candidates.push_back({best, bestAmplitude, bestHz, d.name});
         }
-        // One bearing rarely has two defects at once: a family much weaker than the dominant one,
-        // or whose fundamental sits on one of the dominant family's harmonics, is most likely a
-        // combination line of it; keep it at watch, or drop it (common practice (no source)).
+        // One bearing rarely has two defects at once: a family whose fundamental sits on a
+        // harmonic of the dominant family's line or on a shaft-rate sideband of one is a
+        // combination line of it and is dropped; a family much weaker than the dominant one is
+        // kept at watch (common practice (no source)).
         if (candidates.empty()) continue;
         const auto dominant = std::max_element(candidates.begin(), candidates.end(),
                                                [](const Candidate& a, const Candidate& b) { return a.amplitude < b.amplitude; });
@@ -339,10 +342,13 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
                 out.push_back(c.finding);
                 continue;
             }
-            bool onDominantHarmonic = false;
-            for (int h = 2; h <= 5; ++h)
-                onDominantHarmonic |= std::abs(c.fundamentalHz - h * dominant->fundamentalHz) < t.bearingTolerance * 0.25 * c.fundamentalHz;
-            if (onDominantHarmonic) continue;
+            // Harmonics of the dominant line and their shaft-rate sidebands (h x f_d + m x fr).
+            bool combination = false;
+            for (int h = 1; h <= 5; ++h)
+                for (int m = -2; m <= 2; ++m)
+                    if (h > 1 || m != 0)
+                        combination |= std::abs(c.fundamentalHz - (h * dominant->fundamentalHz + m * fr)) < 0.005 * c.fundamentalHz;
+            if (combination) continue;
             if (c.amplitude < 0.33 * dominant->amplitude) {
                 c.finding.severity = std::min(c.finding.severity, 1);
                 c.finding.confidence *= 0.6;

@@ -64,8 +64,16 @@ std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const dou
     z.scale = dsp::SpectrumScale::Rms;
     auto zs = dsp::zoomSpectrum(current, fs, z);
     if (!zs.ok()) return std::nullopt;
-    const auto p = strongestIn(zs.value(), centre - span / 2, centre + span / 2, 1.0);
+    // The supply line must dominate a stator current (or voltage): at least 20 dB above the floor
+    // and a quarter of the signal's power; otherwise there is no supply line to speak of.
+    const auto p = strongestIn(zs.value(), centre - span / 2, centre + span / 2, 10.0);
     if (!p) return std::nullopt;
+    double meanSquare = 0, mean = 0;
+    for (double v : current) mean += v;
+    mean /= static_cast<double>(current.size());
+    for (double v : current) meanSquare += (v - mean) * (v - mean);
+    meanSquare /= static_cast<double>(current.size());
+    if (p->amplitude * p->amplitude < 0.25 * meanSquare) return std::nullopt;
     return LineFrequencyEstimate{p->frequencyHz, p->amplitude, confidenceOf(p->prominence)};
 }
 
