@@ -25,18 +25,16 @@ ParsedArgs::ParsedArgs(const std::vector<std::string>& args, const std::vector<O
         for (const auto& s : specs)
             if (s.name == name) spec = &s;
         if (!spec) throw UsageError("unknown option '--" + name + "'");
-        if (m_values.count(name)) throw UsageError("option '--" + name + "' is given more than once");
+        if (m_values.count(name) && !spec->repeatable) throw UsageError("option '--" + name + "' is given more than once");
         if (!spec->takesValue) {
             if (inlineValue) throw UsageError("option '--" + name + "' takes no value");
             m_values[name] = "";
             continue;
         }
-        if (inlineValue) {
-            m_values[name] = *inlineValue;
-        } else {
-            if (i + 1 >= args.size()) throw UsageError("option '--" + name + "' needs a value");
-            m_values[name] = args[++i];
-        }
+        if (!inlineValue && i + 1 >= args.size()) throw UsageError("option '--" + name + "' needs a value");
+        const std::string v = inlineValue ? *inlineValue : args[++i];
+        m_values[name] = v;
+        m_repeated[name].push_back(v);
     }
 }
 
@@ -44,6 +42,11 @@ std::optional<std::string> ParsedArgs::value(const std::string& name) const {
     const auto it = m_values.find(name);
     if (it == m_values.end()) return std::nullopt;
     return it->second;
+}
+
+std::vector<std::string> ParsedArgs::values(const std::string& name) const {
+    const auto it = m_repeated.find(name);
+    return it == m_repeated.end() ? std::vector<std::string>{} : it->second;
 }
 
 std::optional<double> ParsedArgs::number(const std::string& name) const {

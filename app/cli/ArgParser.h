@@ -13,6 +13,7 @@ namespace humwise::cli {
 struct OptionSpec {
     std::string name;   // without the dashes
     bool takesValue = true;
+    bool repeatable = false; // may be given several times (values(name) lists them)
 };
 
 class ParsedArgs {
@@ -21,6 +22,7 @@ public:
 
     bool has(const std::string& name) const { return m_values.count(name) > 0; }
     std::optional<std::string> value(const std::string& name) const;
+    std::vector<std::string> values(const std::string& name) const; // every value of a repeatable option
     const std::vector<std::string>& positional() const { return m_positional; }
 
     double number(const std::string& name, double fallback) const;          // any finite number
@@ -29,6 +31,7 @@ public:
 
 private:
     std::map<std::string, std::string> m_values;
+    std::map<std::string, std::vector<std::string>> m_repeated;
     std::vector<std::string> m_positional;
 };
 

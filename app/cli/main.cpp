@@ -6,6 +6,7 @@
 #include "app/cli/FaultsCommand.h"
 #include "app/cli/InspectCommand.h"
 #include "app/cli/SpectrumCommand.h"
+#include "app/cli/StoreCommands.h"
 
 #include <exception>
 #include <iostream>
@@ -45,6 +46,21 @@ Commands:
       A, B, C. The bearing given applies to both ends. --power-off names a recording made just
       after the supply was cut: lines that vanish at once are electrical.
 
+Fleet store (every command takes --db PATH; default $XDG_DATA_HOME/humwise/fleet.db or
+~/.local/share/humwise/fleet.db):
+  db init                       create (or migrate) the store
+  fleet import FILE | fleet export FILE
+                                the fleet file: site, areas, motors, points, routes (JSON)
+  import FOLDER [--skip-bad] [--dry-run] [--replace] [--json]
+                                import a walkdown folder described by its manifest.csv
+  reanalyse                     analyse every stored round again with the current rules
+  motors [--json] | rounds [--json]
+  findings [--round latest|DATE|ID] [--motor TAG] [--json]
+  trend --motor TAG [--point NAME] --indicator NAME [--json]
+  compare --motor TAG --point NAME --round A --round B [--kind velocity|envelope|current|zoom]
+          [--grow-db DB] [--json]
+                                order-normalised comparison: the lines that appeared or grew
+
 Files: WAV (PCM 8/16/24/32-bit, float 32/64, extensible) and CSV (see README.md).
 A WAV carries no unit: --quantity (default acceleration) and --input-unit (default g for
 acceleration, mm/s for velocity, um for displacement, A for current, V for voltage) say
@@ -75,6 +91,15 @@ int main(int argc, char** argv) {
         if (command == "spectrum") return runSpectrum(args, std::cout);
         if (command == "faults") return runFaults(args, std::cout);
         if (command == "diagnose") return runDiagnose(args, std::cout);
+        if (command == "db") return runDb(args, std::cout);
+        if (command == "fleet") return runFleet(args, std::cout);
+        if (command == "import") return runImport(args, std::cout);
+        if (command == "reanalyse") return runReanalyse(args, std::cout);
+        if (command == "motors") return runMotors(args, std::cout);
+        if (command == "rounds") return runRounds(args, std::cout);
+        if (command == "findings") return runFindings(args, std::cout);
+        if (command == "trend") return runTrend(args, std::cout);
+        if (command == "compare") return runCompare(args, std::cout);
         throw UsageError("unknown command '" + command + "'");
     } catch (const UsageError& e) {
         std::cerr << "humwise-cli: usage error: " << e.what() << "\n(run 'humwise-cli --help' for the commands and options)\n";

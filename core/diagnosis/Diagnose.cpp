@@ -9,6 +9,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <stdexcept>
 
 namespace humwise::diagnosis {
@@ -103,7 +104,7 @@ void currentIndicators(IndicatorList& ind, const PhaseSetProducts& c, const Rule
 
 } // namespace
 
-DiagnosisResult diagnose(const DiagnosisInput& in, const Thresholds& thresholds) {
+DiagnosisResult diagnose(const DiagnosisInput& in, const Thresholds& thresholds, bool keepSpectra) {
     const auto issues = motor::validate(in.motor);
     if (!issues.empty()) throw std::invalid_argument("motor '" + in.motor.tag + "': " + issues.front().message);
     const int poles = *motor::polesOf(in.motor.nameplate);
@@ -200,6 +201,21 @@ DiagnosisResult diagnose(const DiagnosisInput& in, const Thresholds& thresholds)
         } catch (const std::invalid_argument& e) {
             result.notes.push_back(std::string("power-off comparison not made: ") + e.what());
         }
+    }
+    if (keepSpectra) {
+        for (const auto& ch : vibration) {
+            result.spectra.push_back({ch.input->name, "velocity", ch.velocity, ""});
+            if (ch.envelope) {
+                char band[96];
+                std::snprintf(band, sizeof band, "squared envelope of %.0f-%.0f Hz", ch.envelope->bandLowHz, ch.envelope->bandHighHz);
+                result.spectra.push_back({ch.input->name, "envelope", ch.envelope->spectrum, band});
+            }
+        }
+        if (current) {
+            result.spectra.push_back({current->name, "zoom", current->zoom, ""});
+            result.spectra.push_back({current->name, "current", current->wide, ""});
+        }
+        if (voltage) result.spectra.push_back({voltage->name, "voltage", voltage->wide, ""});
     }
     std::stable_sort(findings.begin(), findings.end(), [](const Finding& a, const Finding& b) {
         return a.severity != b.severity ? a.severity > b.severity : a.confidence > b.confidence;

@@ -1,0 +1,436 @@
+#include "app/common/Walkdown.h"
+
+#include "app/common/MotorAnalysis.h"
+#include "core/dsp/Quality.h"
+#include "core/io/FileBytes.h"
+#include "core/io/Manifest.h"
+#include "core/io/RecordingReader.h"
+#include "core/util/Sha256.h"
+#include "core/util/Text.h"
+
+#include <algorithm>
+#include <chrono>
+#include <future>
+#include <map>
+#include <set>
+#include <thread>
+
+namespace humwise::workflow {
+namespace {
+
+namespace fs = std::filesystem;
+using Code = ImportError::Code;
+
+struct Cancelled {};
+
+// One recording the import will store: where it comes from and how to read it.
+struct Planned {
+    MatchedRecording match;
+    fs::path path;
+    const fleet::MotorDefinition* motor = nullptr;
+    const fleet::PointDefinition* point = nullptr;
+    Unit unit = Unit::G;
+    double sensitivity = 1.0;
+    std::string time;
+    std::optional<double> speedRpm, loadPercent;
+    // Filled by the check:
+    std::string hash, format;
+    double sampleRateHz = 0;
+    std::size_t samples = 0;
+    std::vector<std::string> quality;
+};
+
+std::string nowIso() {
+    return text::formatIsoTime(std::chrono::floor<std::chrono::milliseconds>(std::chrono::system_clock::now()));
+}
+
+bool inside(const fs::path& folder, const fs::path& candidate) {
+    const auto rel = candidate.lexically_relative(folder);
+    return !rel.empty() && *rel.begin() != ".." && !rel.is_absolute();
+}
+
+io::RecordingReadOptions readOptions(const Planned& p) {
+    io::RecordingReadOptions o;
+    o.channels.perChannel.resize(static_cast<std::size_t>(p.match.channel));
+    for (auto& c : o.channels.perChannel) c.unit = p.unit;
+    o.channels.perChannel.back().scale = 1.0 / p.sensitivity;
+    o.channels.defaults.unit = p.unit;
+    return o;
+}
+
+double minimumRate(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 500.0 : 2560.0; }
+double minimumSeconds(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 2.0 : 1.0; }
+
+// Reads and checks one planned recording; returns the problem, or nothing when it is good.
+std::optional<ImportProblem> check(Planned& p, std::map<fs::path, std::vector<std::byte>>& cache) {
+    const auto bad = [&](const char* kind, std::string reason) { return ImportProblem{p.match.file, kind, std::move(reason)}; };
+    auto it = cache.find(p.path);
+    if (it == cache.end()) {
+        auto bytes = io::readFileBytes(p.path);
+        if (!bytes) return bad("unreadable", bytes.error().message());
+        it = cache.emplace(p.path, std::move(bytes).value()).first;
+    }
+    p.hash = util::sha256Hex(it->second);
+    auto rec = io::parseRecordingBytes(it->second, p.path.string(), readOptions(p));
+    if (!rec) return bad("unreadable", rec.error().message());
+    const auto& r = rec.value().recording;
+    p.format = rec.value().format;
+    if (static_cast<std::size_t>(p.match.channel) > r.channels.size())
+        return bad("no_channel", "channel " + std::to_string(p.match.channel) + " asked, the file has " + std::to_string(r.channels.size()));
+    const auto& ch = r.channels[static_cast<std::size_t>(p.match.channel - 1)];
+    if (ch.quantity != p.point->quantity)
+        return bad("wrong_quantity", "the file holds " + std::string(quantityName(ch.quantity)) + ", point " + p.point->name + " measures " +
+                                         std::string(quantityName(p.point->quantity)));
+    p.sampleRateHz = r.sampleRateHz;
+    p.samples = ch.samples.size();
+    if (r.sampleRateHz < minimumRate(ch.quantity))
+        return bad("wrong_rate", text::lower(std::string(quantityName(ch.quantity))) + " sampled at " + std::to_string(static_cast<long long>(r.sampleRateHz)) +
+                                     " Hz; at least " + std::to_string(static_cast<long long>(minimumRate(ch.quantity))) + " Hz are needed");
+    if (r.durationSeconds() < minimumSeconds(ch.quantity))
+        return bad("too_short", "the recording lasts " + std::to_string(r.durationSeconds()) + " s; at least " +
+                                    std::to_string(static_cast<int>(minimumSeconds(ch.quantity))) + " s are needed");
+    dsp::QualityRequest q;
+    q.quantity = ch.quantity;
+    q.fullScale = ch.fullScale;
+    q.sampleRateHz = r.sampleRateHz;
+    for (const auto& issue : dsp::assessQuality(ch.samples, q)) p.quality.push_back(std::string(dsp::qualityFlagName(issue.flag)) + ": " + issue.detail);
+    return std::nullopt;
+}
+
+// Files the manifest does not list: "TAG/POINT.ext" or "TAG_POINT.ext" naming one motor point.
+std::optional<std::pair<const fleet::MotorDefinition*, const fleet::PointDefinition*>> matchByName(const fleet::Fleet& f, const fs::path& rel) {
+    std::vector<std::pair<const fleet::MotorDefinition*, const fleet::PointDefinition*>> hits;
+    const std::string stem = rel.stem().string();
+    const std::string parent = rel.parent_path().filename().string();
+    for (const auto& m : f.motors)
+        for (const auto& p : m.points) {
+            const bool folderForm = parent == m.motor.tag && stem == p.name;
+            const bool flatForm = stem == m.motor.tag + "_" + p.name;
+            if (folderForm || flatForm) hits.push_back({&m, &p});
+        }
+    if (hits.size() != 1) return std::nullopt;
+    return hits.front();
+}
+
+bool isRecordingFile(const fs::path& p) {
+    const std::string ext = text::lower(p.extension().string());
+    return ext == ".wav" || ext == ".csv" || ext == ".txt" || ext == ".uff" || ext == ".unv";
+}
+
+bool report(const ProgressCallback& cb, std::size_t done, std::size_t total, const std::string& stage) {
+    return !cb || cb({done, total, stage});
+}
+
+// Analyses the motors of one round in parallel (reading their files in the workers) and writes
+// the products from this thread, in fleet order.
+template <class Loader>
+std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, const fleet::Fleet& fleet,
+                          const std::vector<std::string>& motorTags, Loader&& load, const ProgressCallback& progress, unsigned threads,
+                          std::size_t& findingsOut, std::vector<std::string>& notes) {
+    if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
+    std::size_t analysed = 0;
+    for (std::size_t start = 0; start < motorTags.size(); start += threads) {
+        const std::size_t end = std::min(motorTags.size(), start + threads);
+        std::vector<std::future<std::pair<std::vector<PointRecording>, std::optional<MotorAnalysis>>>> jobs;
+        for (std::size_t i = start; i < end; ++i) {
+            const auto* motor = fleet.motor(motorTags[i]);
+            jobs.push_back(std::async(std::launch::async, [motor, &load]() {
+                std::vector<PointRecording> recs = load(*motor);
+                std::optional<MotorAnalysis> analysis;
+                try {
+                    analysis = analyseMotor(*motor, recs);
+                } catch (const std::invalid_argument&) {
+                    // Nothing usable: reported below.
+                }
+                for (auto& r : recs) r.samples = {}; // the products are all that is kept
+                return std::make_pair(std::move(recs), std::move(analysis));
+            }));
+        }
+        for (std::size_t i = start; i < end; ++i) {
+            auto [recs, analysis] = jobs[i - start].get();
+            if (analysis) {
+                storeAnalysis(store, roundId, *analysis, recs);
+                findingsOut += analysis->result.findings.size();
+                ++analysed;
+            } else {
+                notes.push_back(motorTags[i] + ": no usable recording, not analysed");
+            }
+            if (!report(progress, i + 1, motorTags.size(), "analysing " + motorTags[i])) throw Cancelled{};
+        }
+    }
+    return analysed;
+}
+
+PointRecording loadPoint(const Planned& p) {
+    PointRecording r;
+    r.pointName = p.point->name;
+    r.speedRpm = p.speedRpm;
+    r.usable = p.quality.empty();
+    auto bytes = io::readFileBytes(p.path);
+    if (!bytes) return r;
+    auto rec = io::parseRecordingBytes(bytes.value(), p.path.string(), readOptions(p));
+    if (!rec) return r;
+    auto& ch = rec.value().recording.channels[static_cast<std::size_t>(p.match.channel - 1)];
+    r.sampleRateHz = rec.value().recording.sampleRateHz;
+    r.quantity = ch.quantity;
+    r.samples = std::move(ch.samples);
+    return r;
+}
+
+} // namespace
+
+Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, const fs::path& folderIn, const ImportOptions& options) {
+    ImportReport rep;
+    rep.folder = folderIn.string();
+    std::error_code ec;
+    if (!fs::is_directory(folderIn, ec)) return fail(ImportError{Code::NoFolder, folderIn.string() + ": not a folder", rep});
+    const fs::path folder = fs::canonical(folderIn, ec);
+    const fs::path manifestPath = folder / "manifest.csv";
+    auto manifestBytes = io::readFileBytes(manifestPath, std::uint64_t{16} << 20);
+    if (!manifestBytes)
+        return fail(ImportError{Code::NoManifest, manifestPath.string() + ": no walkdown manifest (manifest.csv) in the folder", rep});
+    const std::string manifestText(reinterpret_cast<const char*>(manifestBytes.value().data()), manifestBytes.value().size());
+    auto manifest = io::parseManifest(manifestText, manifestPath.string());
+    if (!manifest) return fail(ImportError{Code::BadManifest, manifest.error().message(), rep});
+    const auto& man = manifest.value();
+    rep.roundStart = text::formatIsoTime(man.roundStart);
+
+    try {
+        const fleet::Fleet fleet = store.loadFleet();
+        if (fleet.motors.empty()) return fail(ImportError{Code::NoFleet, store.database().path().string() + ": the store holds no fleet; import a fleet file first", rep});
+
+        // Plan: manifest entries, then unlisted files matched by name.
+        std::vector<Planned> plan;
+        std::set<fs::path> listed;
+        std::set<std::pair<std::string, std::string>> points;
+        std::set<std::pair<fs::path, int>> channels;
+        for (const auto& e : man.entries) {
+            Planned p;
+            p.match = {e.file, e.channel, e.motorTag, e.pointName, "manifest"};
+            const fs::path rel(e.file);
+            if (rel.is_absolute() || !inside(folder, (folder / rel).lexically_normal())) {
+                rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the path leaves the walkdown folder"});
+                continue;
+            }
+            p.path = (folder / rel).lexically_normal();
+            if (fs::exists(p.path, ec) && !inside(folder, fs::canonical(p.path, ec))) {
+                rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the file is a link out of the walkdown folder"});
+                continue;
+            }
+            listed.insert(p.path);
+            p.motor = fleet.motor(e.motorTag);
+            p.point = p.motor ? p.motor->point(e.pointName) : nullptr;
+            if (!p.point) {
+                rep.bad.push_back({e.file, "unknown_point", "manifest line " + std::to_string(e.line) + ": motor '" + e.motorTag + "' has no point '" + e.pointName + "' in the fleet"});
+                continue;
+            }
+            if (!points.insert({e.motorTag, e.pointName}).second || !channels.insert({p.path, e.channel}).second) {
+                rep.bad.push_back({e.file, "duplicate", "manifest line " + std::to_string(e.line) + ": " + e.motorTag + "/" + e.pointName + " or this file and channel is listed twice"});
+                continue;
+            }
+            if (!fs::is_regular_file(p.path, ec)) {
+                rep.bad.push_back({e.file, "missing", "manifest line " + std::to_string(e.line) + ": no such file in the walkdown folder"});
+                continue;
+            }
+            p.unit = e.unit.value_or(p.point->unit);
+            if (e.quantity && *e.quantity != p.point->quantity) {
+                rep.bad.push_back({e.file, "wrong_quantity", "manifest line " + std::to_string(e.line) + ": point " + e.pointName + " measures " + std::string(quantityName(p.point->quantity))});
+                continue;
+            }
+            p.sensitivity = e.sensitivity.value_or(p.point->sensitivity);
+            p.time = text::formatIsoTime(e.time.value_or(man.roundStart));
+            p.speedRpm = e.speedRpm;
+            p.loadPercent = e.loadPercent;
+            plan.push_back(std::move(p));
+        }
+        for (auto it = fs::recursive_directory_iterator(folder, ec); !ec && it != fs::recursive_directory_iterator(); it.increment(ec)) {
+            if (!it->is_regular_file() || it->path() == manifestPath || !isRecordingFile(it->path()) || listed.count(it->path())) continue;
+            const auto rel = it->path().lexically_relative(folder);
+            const auto hit = matchByName(fleet, rel);
+            if (!hit || points.count({hit->first->motor.tag, hit->second->name})) {
+                rep.unmatched.push_back(rel.string());
+                continue;
+            }
+            points.insert({hit->first->motor.tag, hit->second->name});
+            Planned p;
+            p.match = {rel.string(), 1, hit->first->motor.tag, hit->second->name, "file name"};
+            p.path = it->path();
+            p.motor = hit->first;
+            p.point = hit->second;
+            p.unit = p.point->unit;
+            p.sensitivity = p.point->sensitivity;
+            p.time = rep.roundStart;
+            plan.push_back(std::move(p));
+        }
+        std::sort(rep.unmatched.begin(), rep.unmatched.end());
+
+        // Check every file (read and parse it whole); keep only the good ones.
+        std::vector<Planned> good;
+        {
+            std::map<fs::path, std::vector<std::byte>> cache;
+            for (std::size_t i = 0; i < plan.size(); ++i) {
+                if (!report(options.progress, i, plan.size(), "checking " + plan[i].match.file))
+                    return fail(ImportError{Code::Cancelled, "import cancelled; nothing was stored", rep});
+                if (auto problem = check(plan[i], cache)) {
+                    rep.bad.push_back(*problem);
+                    continue;
+                }
+                for (const auto& q : plan[i].quality)
+                    rep.flagged.push_back({plan[i].match.file, q.substr(0, q.find(':')), q});
+                rep.matched.push_back(plan[i].match);
+                good.push_back(std::move(plan[i]));
+                if (cache.size() > 8) cache.clear(); // bounded memory: files of one motor sit together
+            }
+        }
+        if (!rep.bad.empty() && !options.skipBad) {
+            std::string msg = folder.string() + ": " + std::to_string(rep.bad.size()) + " bad file(s), nothing imported (use --skip-bad to import the rest):";
+            for (const auto& b : rep.bad) msg += "\n  " + b.file + ": " + b.kind + " - " + b.reason;
+            return fail(ImportError{Code::BadFiles, msg, rep});
+        }
+        if (good.empty()) return fail(ImportError{Code::BadFiles, folder.string() + ": no recording could be imported", rep});
+
+        // The walkdown's identity: the manifest and every imported file.
+        util::Sha256 identity;
+        identity.update(manifestText);
+        for (const auto& p : good) identity.update(p.hash);
+        const std::string roundHash = identity.finishHex();
+        const auto existing = store.roundByManifestHash(roundHash);
+        if (existing && !options.replace)
+            return fail(ImportError{Code::AlreadyImported, folder.string() + ": this walkdown was imported already (round of " + existing->startedAt +
+                                                               "); use --replace to import it again in its place", rep});
+        if (options.dryRun) return rep;
+
+        storage::Transaction tx(store.database());
+        if (existing) {
+            store.deleteRound(existing->id);
+            rep.replaced = true;
+        }
+        storage::RoundRow round;
+        round.route = man.route && !man.route->empty() ? man.route : std::nullopt;
+        if (round.route) {
+            bool known = false;
+            for (const auto& r : fleet.routes) known |= r.name == *round.route;
+            if (!known) {
+                rep.notes.push_back("route '" + *round.route + "' is not in the fleet; the round is stored without a route");
+                round.route.reset();
+            }
+        }
+        round.startedAt = rep.roundStart;
+        round.technician = man.technician;
+        round.notes = man.notes;
+        round.manifestHash = roundHash;
+        round.sourceFolder = folder.string();
+        round.importedAt = nowIso();
+        const std::int64_t roundId = store.insertRound(round);
+        std::map<std::pair<std::string, std::string>, std::int64_t> recordingIds;
+        for (auto& p : good) {
+            auto bytes = io::readFileBytes(p.path);
+            if (!bytes) throw storage::StorageException{{storage::StorageError::Code::Io, bytes.error().message(), 0}};
+            store.storeSourceFile(p.hash, bytes.value());
+            storage::RecordingRow row;
+            row.roundId = roundId;
+            row.motorTag = p.motor->motor.tag;
+            row.pointName = p.point->name;
+            row.recordedAt = p.time;
+            row.sampleRateHz = p.sampleRateHz;
+            row.sampleCount = static_cast<std::int64_t>(p.samples);
+            row.fileName = p.match.file;
+            row.fileHash = p.hash;
+            row.fileFormat = p.format;
+            row.channelIndex = p.match.channel - 1;
+            row.unit = std::string(unitSymbol(p.unit));
+            row.sensitivity = p.sensitivity;
+            for (const auto& q : p.quality) row.quality += (row.quality.empty() ? "" : ",") + q.substr(0, q.find(':'));
+            row.speedRpm = p.speedRpm;
+            row.loadPercent = p.loadPercent;
+            recordingIds[{row.motorTag, row.pointName}] = store.insertRecording(row);
+        }
+        std::vector<std::string> motorTags;
+        for (const auto& m : fleet.motors)
+            for (const auto& p : good)
+                if (p.motor == &m) {
+                    motorTags.push_back(m.motor.tag);
+                    break;
+                }
+        const auto loader = [&](const fleet::MotorDefinition& m) {
+            std::vector<PointRecording> recs;
+            for (const auto& p : good)
+                if (p.motor == &m) {
+                    PointRecording r = loadPoint(p);
+                    r.recordingId = recordingIds.at({m.motor.tag, p.point->name});
+                    recs.push_back(std::move(r));
+                }
+            return recs;
+        };
+        rep.motorsAnalysed = analyseMotors(store, roundId, fleet, motorTags, loader, options.progress, options.threads, rep.findings, rep.notes);
+        tx.commit();
+        rep.roundId = roundId;
+        return rep;
+    } catch (const Cancelled&) {
+        return fail(ImportError{Code::Cancelled, "import cancelled; nothing was stored", rep});
+    } catch (const storage::StorageException& e) {
+        return fail(ImportError{Code::Storage, e.error.message + " - nothing was stored", rep});
+    }
+}
+
+Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, const ProgressCallback& progress, unsigned threads) {
+    ReanalysisReport out;
+    try {
+        const fleet::Fleet fleet = store.loadFleet();
+        for (const auto& round : store.rounds()) {
+            const auto recordings = store.recordings(round.id);
+            storage::Transaction tx(store.database());
+            store.deleteAnalysis(round.id);
+            // Raw files are read here (one connection, one thread); parsing and analysis run in the workers.
+            std::map<std::string, std::vector<std::byte>> files;
+            std::vector<std::string> motorTags;
+            for (const auto& m : fleet.motors)
+                for (const auto& r : recordings)
+                    if (r.motorTag == m.motor.tag) {
+                        motorTags.push_back(m.motor.tag);
+                        break;
+                    }
+            for (const auto& r : recordings)
+                if (!files.count(r.fileHash)) files[r.fileHash] = store.sourceFile(r.fileHash);
+            const auto loader = [&](const fleet::MotorDefinition& m) {
+                std::vector<PointRecording> recs;
+                for (const auto& r : recordings) {
+                    if (r.motorTag != m.motor.tag) continue;
+                    PointRecording pr;
+                    pr.recordingId = r.id;
+                    pr.pointName = r.pointName;
+                    pr.speedRpm = r.speedRpm;
+                    pr.usable = r.quality.empty();
+                    io::RecordingReadOptions o;
+                    o.channels.perChannel.resize(static_cast<std::size_t>(r.channelIndex + 1));
+                    const Unit unit = parseUnit(r.unit).value_or(Unit::G);
+                    for (auto& c : o.channels.perChannel) c.unit = unit;
+                    o.channels.perChannel.back().scale = 1.0 / r.sensitivity;
+                    o.channels.defaults.unit = unit;
+                    auto rec = io::parseRecordingBytes(files.at(r.fileHash), r.fileName, o);
+                    if (rec && static_cast<std::size_t>(r.channelIndex) < rec.value().recording.channels.size()) {
+                        auto& ch = rec.value().recording.channels[static_cast<std::size_t>(r.channelIndex)];
+                        pr.sampleRateHz = rec.value().recording.sampleRateHz;
+                        pr.quantity = ch.quantity;
+                        pr.samples = std::move(ch.samples);
+                    } else {
+                        pr.usable = false;
+                    }
+                    recs.push_back(std::move(pr));
+                }
+                return recs;
+            };
+            std::vector<std::string> notes;
+            out.motors += analyseMotors(store, round.id, fleet, motorTags, loader, progress, threads, out.findings, notes);
+            tx.commit();
+            ++out.rounds;
+        }
+        return out;
+    } catch (const Cancelled&) {
+        return fail(ImportError{Code::Cancelled, "reanalysis cancelled; the rounds done so far keep their new analysis", {}});
+    } catch (const storage::StorageException& e) {
+        return fail(ImportError{Code::Storage, e.error.message, {}});
+    }
+}
+
+} // namespace humwise::workflow

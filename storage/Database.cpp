@@ -1,0 +1,198 @@
+#include "storage/Database.h"
+
+#include <sqlite3.h>
+
+#include <utility>
+
+namespace humwise::storage {
+namespace {
+
+StorageError::Code codeFor(int rc) {
+    switch (rc & 0xff) {
+    case SQLITE_CANTOPEN: return StorageError::Code::CannotOpen;
+    case SQLITE_NOTADB: return StorageError::Code::Corrupt;
+    case SQLITE_READONLY: return StorageError::Code::ReadOnly;
+    case SQLITE_BUSY:
+    case SQLITE_LOCKED: return StorageError::Code::Busy;
+    case SQLITE_CORRUPT: return StorageError::Code::Corrupt;
+    case SQLITE_FULL: return StorageError::Code::Full;
+    case SQLITE_CONSTRAINT: return StorageError::Code::Constraint;
+    case SQLITE_IOERR: return StorageError::Code::Io;
+    case SQLITE_PERM:
+    case SQLITE_AUTH: return StorageError::Code::ReadOnly;
+    default: return StorageError::Code::Internal;
+    }
+}
+
+} // namespace
+
+const char* codeName(StorageError::Code code) {
+    using C = StorageError::Code;
+    switch (code) {
+    case C::CannotOpen: return "cannot_open";
+    case C::ReadOnly: return "read_only";
+    case C::Busy: return "busy";
+    case C::Corrupt: return "corrupt";
+    case C::Full: return "full";
+    case C::TooNew: return "too_new";
+    case C::Constraint: return "constraint";
+    case C::NotFound: return "not_found";
+    case C::Invalid: return "invalid";
+    case C::Io: return "io";
+    case C::Internal: return "internal";
+    }
+    return "internal";
+}
+
+Database::Database(const std::filesystem::path& path, Mode mode, int busyTimeoutMs) : m_path(path) {
+    int flags = SQLITE_OPEN_NOMUTEX;
+    flags |= mode == Mode::ReadOnly ? SQLITE_OPEN_READONLY : SQLITE_OPEN_READWRITE;
+    if (mode == Mode::ReadWriteCreate) flags |= SQLITE_OPEN_CREATE;
+    const int rc = sqlite3_open_v2(path.string().c_str(), &m_db, flags, nullptr);
+    if (rc != SQLITE_OK) {
+        StorageError e = errorFrom(rc, "cannot open the database");
+        if ((rc & 0xff) == SQLITE_CANTOPEN) e.code = StorageError::Code::CannotOpen;
+        sqlite3_close(m_db);
+        m_db = nullptr;
+        throw StorageException{e};
+    }
+    sqlite3_extended_result_codes(m_db, 1);
+    sqlite3_busy_timeout(m_db, busyTimeoutMs);
+    try {
+        execute("PRAGMA foreign_keys = ON");
+        if (mode != Mode::ReadOnly) {
+            // WAL lets readers work while one process writes; synchronous NORMAL is durable in WAL
+            // across application crashes (a power cut may lose the last commit, never corrupt).
+            auto s = prepare("PRAGMA journal_mode = WAL");
+            while (s.step()) {}
+            execute("PRAGMA synchronous = NORMAL");
+        }
+    } catch (...) {
+        sqlite3_close(m_db);
+        m_db = nullptr;
+        throw;
+    }
+}
+
+Database::~Database() {
+    m_cache.clear(); // finalize the kept statements before closing
+    if (m_db) sqlite3_close(m_db);
+}
+
+Statement& Database::cached(const char* sql) {
+    auto it = m_cache.find(sql);
+    if (it == m_cache.end()) it = m_cache.emplace(sql, std::make_unique<Statement>(prepare(sql))).first;
+    it->second->reset();
+    return *it->second;
+}
+
+StorageError Database::errorFrom(int rc, std::string_view what) const {
+    StorageError e;
+    e.code = codeFor(rc);
+    e.sqliteCode = rc;
+    const char* detail = m_db ? sqlite3_errmsg(m_db) : sqlite3_errstr(rc);
+    e.message = m_path.string() + ": " + std::string(what) + ": " + (detail ? detail : sqlite3_errstr(rc));
+    return e;
+}
+
+Statement Database::prepare(std::string_view sql) {
+    sqlite3_stmt* stmt = nullptr;
+    const int rc = sqlite3_prepare_v2(m_db, sql.data(), static_cast<int>(sql.size()), &stmt, nullptr);
+    if (rc != SQLITE_OK) throw StorageException{errorFrom(rc, "cannot prepare a statement")};
+    return Statement(*this, stmt);
+}
+
+void Database::execute(std::string_view sql) {
+    auto s = prepare(sql);
+    s.run();
+}
+
+std::int64_t Database::lastInsertId() const { return sqlite3_last_insert_rowid(m_db); }
+int Database::changes() const { return sqlite3_changes(m_db); }
+
+Statement::~Statement() {
+    if (m_stmt) sqlite3_finalize(m_stmt);
+}
+
+Statement::Statement(Statement&& other) noexcept : m_db(other.m_db), m_stmt(std::exchange(other.m_stmt, nullptr)) {}
+
+void Statement::check(int rc, std::string_view what) {
+    if (rc != SQLITE_OK) throw StorageException{m_db->errorFrom(rc, what)};
+}
+
+Statement& Statement::bind(int i, std::int64_t v) {
+    check(sqlite3_bind_int64(m_stmt, i, v), "bind");
+    return *this;
+}
+Statement& Statement::bind(int i, double v) {
+    check(sqlite3_bind_double(m_stmt, i, v), "bind");
+    return *this;
+}
+Statement& Statement::bind(int i, std::string_view t) {
+    check(sqlite3_bind_text(m_stmt, i, t.data(), static_cast<int>(t.size()), SQLITE_TRANSIENT), "bind");
+    return *this;
+}
+Statement& Statement::bindBlob(int i, std::span<const std::byte> b) {
+    check(sqlite3_bind_blob64(m_stmt, i, b.data(), b.size(), SQLITE_TRANSIENT), "bind");
+    return *this;
+}
+Statement& Statement::bindNull(int i) {
+    check(sqlite3_bind_null(m_stmt, i), "bind");
+    return *this;
+}
+
+bool Statement::step() {
+    const int rc = sqlite3_step(m_stmt);
+    if (rc == SQLITE_ROW) return true;
+    if (rc == SQLITE_DONE) return false;
+    throw StorageException{m_db->errorFrom(rc, "statement failed")};
+}
+
+void Statement::run() {
+    while (step()) {}
+}
+
+void Statement::reset() {
+    sqlite3_reset(m_stmt);
+    sqlite3_clear_bindings(m_stmt);
+}
+
+bool Statement::isNull(int c) const { return sqlite3_column_type(m_stmt, c) == SQLITE_NULL; }
+std::int64_t Statement::integer(int c) const { return sqlite3_column_int64(m_stmt, c); }
+double Statement::real(int c) const { return sqlite3_column_double(m_stmt, c); }
+std::string Statement::text(int c) const {
+    const auto* p = sqlite3_column_text(m_stmt, c);
+    return p ? std::string(reinterpret_cast<const char*>(p), static_cast<std::size_t>(sqlite3_column_bytes(m_stmt, c))) : std::string();
+}
+std::vector<std::byte> Statement::blob(int c) const {
+    const auto* p = static_cast<const std::byte*>(sqlite3_column_blob(m_stmt, c));
+    const auto n = static_cast<std::size_t>(sqlite3_column_bytes(m_stmt, c));
+    return p ? std::vector<std::byte>(p, p + n) : std::vector<std::byte>();
+}
+std::optional<double> Statement::optionalReal(int c) const {
+    if (isNull(c)) return std::nullopt;
+    return real(c);
+}
+std::optional<std::int64_t> Statement::optionalInteger(int c) const {
+    if (isNull(c)) return std::nullopt;
+    return integer(c);
+}
+
+Transaction::Transaction(Database& db) : m_db(db) { m_db.execute("BEGIN IMMEDIATE"); }
+
+Transaction::~Transaction() {
+    if (!m_done) {
+        try {
+            m_db.execute("ROLLBACK");
+        } catch (...) {
+            // The connection is already rolled back (e.g. after SQLITE_FULL); nothing to undo.
+        }
+    }
+}
+
+void Transaction::commit() {
+    m_db.execute("COMMIT");
+    m_done = true;
+}
+
+} // namespace humwise::storage

@@ -1,0 +1,108 @@
+#pragma once
+// RAII wrappers around the SQLite C API. No SQL string is ever built from user data: every
+// value goes through Statement::bind. Foreign keys are on, the journal is WAL and a busy timeout
+// lets a second process read while one writes.
+//
+// Thread safety: one Database object per thread (SQLite connections are not shared here).
+
+#include "storage/StorageError.h"
+
+#include <cstdint>
+#include <filesystem>
+#include <map>
+#include <memory>
+#include <optional>
+#include <span>
+#include <string>
+#include <string_view>
+#include <vector>
+
+struct sqlite3;
+struct sqlite3_stmt;
+
+namespace humwise::storage {
+
+class Statement;
+
+class Database {
+public:
+    enum class Mode { ReadWrite, ReadWriteCreate, ReadOnly };
+
+    // Opens (and with ReadWriteCreate creates) the database; throws StorageException.
+    Database(const std::filesystem::path& path, Mode mode = Mode::ReadWriteCreate, int busyTimeoutMs = 5000);
+    ~Database();
+    Database(const Database&) = delete;
+    Database& operator=(const Database&) = delete;
+
+    const std::filesystem::path& path() const { return m_path; }
+    Statement prepare(std::string_view sql);
+    // A prepared statement kept for the life of the connection, reset and unbound, for hot
+    // paths (bulk inserts, lookups). Do not hold two uses of the same SQL at once.
+    Statement& cached(const char* sql);
+    void execute(std::string_view sql);       // statements without parameters or results (DDL, PRAGMA)
+    std::int64_t lastInsertId() const;
+    int changes() const;
+    sqlite3* handle() { return m_db; }
+
+    // The SQLite error of the connection as a StorageError naming the database.
+    StorageError errorFrom(int rc, std::string_view what) const;
+
+private:
+    sqlite3* m_db = nullptr;
+    std::filesystem::path m_path;
+    std::map<std::string, std::unique_ptr<Statement>, std::less<>> m_cache;
+};
+
+class Statement {
+public:
+    Statement(Database& db, sqlite3_stmt* stmt) : m_db(&db), m_stmt(stmt) {}
+    ~Statement();
+    Statement(Statement&& other) noexcept;
+    Statement& operator=(Statement&&) = delete;
+    Statement(const Statement&) = delete;
+
+    // Parameters are 1-based, as in SQLite.
+    Statement& bind(int index, std::int64_t value);
+    Statement& bind(int index, int value) { return bind(index, static_cast<std::int64_t>(value)); }
+    Statement& bind(int index, double value);
+    Statement& bind(int index, std::string_view text);
+    Statement& bind(int index, const char* text) { return bind(index, std::string_view(text)); }
+    Statement& bind(int index, const std::string& text) { return bind(index, std::string_view(text)); }
+    Statement& bindBlob(int index, std::span<const std::byte> bytes);
+    Statement& bindNull(int index);
+    template <class T>
+    Statement& bind(int index, const std::optional<T>& v) { return v ? bind(index, *v) : bindNull(index); }
+
+    bool step();   // true while a row is available; throws StorageException on error
+    void run();    // step() to completion, for statements without rows
+    void reset();  // ready to bind and step again
+
+    bool isNull(int column) const;
+    std::int64_t integer(int column) const;
+    double real(int column) const;
+    std::string text(int column) const;
+    std::vector<std::byte> blob(int column) const;
+    std::optional<double> optionalReal(int column) const;
+    std::optional<std::int64_t> optionalInteger(int column) const;
+
+private:
+    void check(int rc, std::string_view what);
+    Database* m_db;
+    sqlite3_stmt* m_stmt;
+};
+
+// BEGIN IMMEDIATE ... COMMIT, rolled back by the destructor unless committed.
+class Transaction {
+public:
+    explicit Transaction(Database& db);
+    ~Transaction();
+    void commit();
+    Transaction(const Transaction&) = delete;
+    Transaction& operator=(const Transaction&) = delete;
+
+private:
+    Database& m_db;
+    bool m_done = false;
+};
+
+} // namespace humwise::storage
