@@ -102,3 +102,33 @@ TEST(Schema, NotADatabaseAndMissingFolderGiveTypedErrors) {
 
 } // namespace
 } // namespace humwise::storage
+
+namespace humwise::storage {
+namespace {
+
+// WAL and the busy timeout: while one process writes, a second reads the last committed state;
+// a second writer waits, then gets a clear Busy error instead of corrupting anything.
+TEST(Schema, ReadersWorkWhileOneWrites) {
+    const auto path = freshDb("concurrent.db");
+    auto writer = FleetStore::open(path);
+    writer->database().execute("INSERT INTO sites(name) VALUES ('Works')");
+    Transaction tx(writer->database());
+    writer->database().execute("INSERT INTO areas(site_id, name, position) VALUES (1, 'Hall', 0)");
+    auto reader = FleetStore::open(path, false);
+    const auto seen = reader->loadFleet();
+    EXPECT_EQ(seen.site, "Works");
+    EXPECT_TRUE(seen.areas.empty()); // the uncommitted area is not visible
+    Database second(path, Database::Mode::ReadWrite, 100);
+    try {
+        Transaction other(second);
+        ADD_FAILURE() << "a second writer got in";
+    } catch (const StorageException& e) {
+        EXPECT_EQ(e.error.code, StorageError::Code::Busy) << e.error.message;
+        EXPECT_NE(e.error.message.find(path.string()), std::string::npos);
+    }
+    tx.commit();
+    EXPECT_EQ(reader->loadFleet().areas.size(), 1u);
+}
+
+} // namespace
+} // namespace humwise::storage
