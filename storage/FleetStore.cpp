@@ -428,16 +428,17 @@ void FleetStore::deleteAnalysis(std::int64_t roundId) {
 }
 
 void FleetStore::insertSpectrum(const SpectrumRow& r) {
-    auto s = m_db->prepare(R"SQL(INSERT INTO spectra(recording_id, kind, quantity, unit, scale, window_name, start_hz, resolution_hz, enbw_hz,
-        averages, parameters, analysis_version, line_values) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13))SQL");
+    auto& s = m_db->cached(R"SQL(INSERT INTO spectra(recording_id, kind, quantity, unit, scale, window_name, start_hz, resolution_hz, enbw_hz,
+        averages, parameters, analysis_version, line_values, sample_rate_hz, segment_length, transform_length)
+        VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16))SQL");
     s.bind(1, r.recordingId).bind(2, r.kind).bind(3, r.quantity).bind(4, r.unit).bind(5, r.scale).bind(6, r.window).bind(7, r.startHz);
     s.bind(8, r.resolutionHz).bind(9, r.enbwHz).bind(10, r.averages).bind(11, r.parameters).bind(12, r.analysisVersion);
-    s.bindBlob(13, floatBlob(r.values)).run();
+    s.bindBlob(13, floatBlob(r.values)).bind(14, r.sampleRateHz).bind(15, r.segmentLength).bind(16, r.transformLength).run();
 }
 
 std::optional<SpectrumRow> FleetStore::spectrum(std::int64_t recordingId, const std::string& kind) {
     auto s = m_db->prepare(R"SQL(SELECT quantity, unit, scale, window_name, start_hz, resolution_hz, enbw_hz, averages, parameters,
-        analysis_version, line_values FROM spectra WHERE recording_id = ?1 AND kind = ?2)SQL");
+        analysis_version, line_values, sample_rate_hz, segment_length, transform_length FROM spectra WHERE recording_id = ?1 AND kind = ?2)SQL");
     s.bind(1, recordingId).bind(2, kind);
     if (!s.step()) return std::nullopt;
     SpectrumRow r;
@@ -454,6 +455,9 @@ std::optional<SpectrumRow> FleetStore::spectrum(std::int64_t recordingId, const 
     r.parameters = s.text(8);
     r.analysisVersion = static_cast<int>(s.integer(9));
     r.values = floatsFrom(s.blob(10));
+    r.sampleRateHz = s.real(11);
+    r.segmentLength = s.integer(12);
+    r.transformLength = s.integer(13);
     return r;
 }
 

@@ -63,6 +63,9 @@ struct SpectrumRow {
     double resolutionHz = 0;
     double enbwHz = 0;
     int averages = 0;
+    double sampleRateHz = 0;
+    std::int64_t segmentLength = 0;   // samples per transform (0 in rows from schema version 2)
+    std::int64_t transformLength = 0; // >= segmentLength when zero-padded
     std::string parameters; // free text (band, etc.)
     int analysisVersion = 0;
     std::vector<float> values;

@@ -185,7 +185,13 @@ CREATE UNIQUE INDEX alarm_limits_key ON alarm_limits(motor_id, IFNULL(point_id, 
 CREATE INDEX indicators_trend ON indicators(motor_id, point_id, name, round_id);
 )SQL";
 
-constexpr const char* kMigrations[] = {kVersion1, kVersion2};
+constexpr const char* kVersion3 = R"SQL(
+ALTER TABLE spectra ADD COLUMN sample_rate_hz REAL NOT NULL DEFAULT 0;
+ALTER TABLE spectra ADD COLUMN segment_length INTEGER NOT NULL DEFAULT 0;
+ALTER TABLE spectra ADD COLUMN transform_length INTEGER NOT NULL DEFAULT 0;
+)SQL";
+
+constexpr const char* kMigrations[] = {kVersion1, kVersion2, kVersion3};
 
 void runScript(Database& db, const char* script) {
     // One statement at a time: the wrappers prepare single statements.

@@ -129,6 +129,9 @@ void storeAnalysis(storage::FleetStore& store, std::int64_t roundId, const Motor
         spectrumRow.resolutionHz = s.spectrum.resolutionHz;
         spectrumRow.enbwHz = s.spectrum.enbwHz;
         spectrumRow.averages = static_cast<int>(s.spectrum.averages);
+        spectrumRow.sampleRateHz = s.spectrum.sampleRateHz;
+        spectrumRow.segmentLength = static_cast<std::int64_t>(s.spectrum.segmentLength);
+        spectrumRow.transformLength = static_cast<std::int64_t>(s.spectrum.transformLength);
         spectrumRow.parameters = s.parameters;
         spectrumRow.analysisVersion = kAnalysisVersion;
         spectrumRow.values = toFloats(s.spectrum.values, 1.0);

@@ -132,3 +132,35 @@ TEST(Schema, ReadersWorkWhileOneWrites) {
 
 } // namespace
 } // namespace humwise::storage
+
+namespace humwise::storage {
+namespace {
+
+TEST(Schema, VersionTwoSpectraGainTheirLengthsOnMigration) {
+    const auto path = freshDb("v2.db");
+    {
+        Database db(path);
+        migrate(db, 2);
+        db.execute("INSERT INTO sites(name) VALUES ('W')");
+        db.execute("INSERT INTO areas(site_id, name, position) VALUES (1, 'A', 0)");
+        db.execute(R"SQL(INSERT INTO motors(area_id, position, tag, rated_power_kw, rated_voltage_v, rated_current_a, supply_hz, rated_speed_rpm,
+                     drive, driven_kind, driven_speed_ratio, severity_standard, severity_group, severity_support)
+                     VALUES (1, 0, 'M', 11, 400, 21, 50, 1460, 'direct-on-line', 'fan', 1, 'ISO 20816-3', 2, 'rigid'))SQL");
+        db.execute("INSERT INTO points(motor_id, position, name, quantity, unit, sensitivity) VALUES (1, 0, 'DE-H', 'acceleration', 'g', 1)");
+        db.execute("INSERT INTO rounds(started_at, manifest_hash, imported_at) VALUES ('2026-01-01', 'h', '2026-01-01')");
+        db.execute("INSERT INTO source_files(hash, size, bytes) VALUES ('f', 1, x'00')");
+        db.execute(R"SQL(INSERT INTO recordings(round_id, point_id, recorded_at, sample_rate_hz, sample_count, file_name, file_hash, file_format,
+                     channel_index, unit, sensitivity) VALUES (1, 1, '2026-01-01', 12800, 100, 'x.wav', 'f', 'wav', 0, 'g', 1))SQL");
+        db.execute(R"SQL(INSERT INTO spectra(recording_id, kind, quantity, unit, scale, window_name, start_hz, resolution_hz, enbw_hz, averages,
+                     analysis_version, line_values) VALUES (1, 'velocity', 'velocity', 'm/s', 'rms', 'hann', 0, 0.25, 0.375, 1, 1, x'0000803F'))SQL");
+    }
+    auto store = FleetStore::open(path);
+    EXPECT_EQ(store->schemaVersion(), kSchemaVersion);
+    const auto row = store->spectrum(1, "velocity");
+    ASSERT_TRUE(row.has_value());
+    EXPECT_EQ(row->values, std::vector<float>{1.0f});
+    EXPECT_EQ(row->segmentLength, 0); // unknown in version 2, filled with 0 by the migration
+}
+
+} // namespace
+} // namespace humwise::storage
