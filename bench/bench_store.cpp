@@ -84,7 +84,7 @@ int main(int argc, char** argv) {
         }
         tx.commit();
     }
-    store->database().execute("PRAGMA wal_checkpoint(TRUNCATE)");
+    store->checkpoint();
     const double buildS = std::chrono::duration<double>(Clock::now() - t0).count();
 
     std::vector<double> ms;

@@ -590,6 +590,8 @@ std::vector<AlarmLimitRow> FleetStore::alarmLimits(const std::string& motorTag) 
     return out;
 }
 
+void FleetStore::checkpoint() { m_db->execute("PRAGMA wal_checkpoint(TRUNCATE)"); }
+
 std::vector<std::string> FleetStore::checkConsistency() {
     std::vector<std::string> problems;
     auto integrity = m_db->prepare("PRAGMA integrity_check");

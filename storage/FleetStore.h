@@ -165,6 +165,9 @@ public:
     void setAlarmLimit(const AlarmLimitRow& limit);
     std::vector<AlarmLimitRow> alarmLimits(const std::string& motorTag);
 
+    // Folds the write-ahead log into the database file (after a bulk build).
+    void checkpoint();
+
     // PRAGMA integrity_check and the application's own checks (every recording's file present,
     // every analysed round has its per-motor rows). Empty when consistent.
     std::vector<std::string> checkConsistency();

@@ -5,6 +5,8 @@
 #include "app/cli/DiagnoseCommand.h"
 #include "app/cli/FaultsCommand.h"
 #include "app/cli/InspectCommand.h"
+#include "app/cli/ReportCommand.h"
+#include "app/cli/SampleFleetCommand.h"
 #include "app/cli/SpectrumCommand.h"
 #include "app/cli/StoreCommands.h"
 
@@ -61,6 +63,20 @@ Fleet store (every command takes --db PATH; default $XDG_DATA_HOME/humwise/fleet
           [--grow-db DB] [--json]
                                 order-normalised comparison: the lines that appeared or grew
 
+Reports:
+  report --motor TAG [--round latest|DATE|ID] --out FILE.pdf [--paper a4|letter] [--comment TEXT]
+                                the finding sheet of one motor (PDF)
+  report --round latest|DATE|ID --out FILE.pdf [--paper a4|letter]
+                                the route summary: every motor of the round, most severe first
+  export --round latest|DATE|ID --what findings|indicators --out FILE.csv
+  export --trend --motor TAG [--point NAME] --indicator NAME --out FILE.csv
+
+Sample data:
+  sample-fleet --out DIR [--db PATH]
+      Writes the sample fleet (a fictional water works: 12 motors, 13 monthly walkdowns with
+      seeded faults, truth.json) under DIR; with --db also creates that store and imports the
+      fleet and walkdown-01..12 (walkdown-13 is left to import by hand). PATH must be a new store.
+
 Files: WAV (PCM 8/16/24/32-bit, float 32/64, extensible) and CSV (see README.md).
 A WAV carries no unit: --quantity (default acceleration) and --input-unit (default g for
 acceleration, mm/s for velocity, um for displacement, A for current, V for voltage) say
@@ -100,6 +116,9 @@ int main(int argc, char** argv) {
         if (command == "findings") return runFindings(args, std::cout);
         if (command == "trend") return runTrend(args, std::cout);
         if (command == "compare") return runCompare(args, std::cout);
+        if (command == "sample-fleet") return runSampleFleet(args, std::cout);
+        if (command == "report") return runReport(args, std::cout);
+        if (command == "export") return runExport(args, std::cout);
         throw UsageError("unknown command '" + command + "'");
     } catch (const UsageError& e) {
         std::cerr << "humwise-cli: usage error: " << e.what() << "\n(run 'humwise-cli --help' for the commands and options)\n";

@@ -213,11 +213,11 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
                 continue;
             }
             p.path = (folder / rel).lexically_normal();
+            listed.insert(p.path); // named by the manifest: never matched again by its file name
             if (fs::exists(p.path, ec) && !inside(folder, fs::canonical(p.path, ec))) {
                 rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the file is a link out of the walkdown folder"});
                 continue;
             }
-            listed.insert(p.path);
             p.motor = fleet.motor(e.motorTag);
             p.point = p.motor ? p.motor->point(e.pointName) : nullptr;
             if (!p.point) {
@@ -246,6 +246,10 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         for (auto it = fs::recursive_directory_iterator(folder, ec); !ec && it != fs::recursive_directory_iterator(); it.increment(ec)) {
             if (!it->is_regular_file() || it->path() == manifestPath || !isRecordingFile(it->path()) || listed.count(it->path())) continue;
             const auto rel = it->path().lexically_relative(folder);
+            if (!inside(folder, fs::canonical(it->path(), ec))) {
+                rep.bad.push_back({rel.string(), "outside_folder", "the file is a link out of the walkdown folder"});
+                continue;
+            }
             const auto hit = matchByName(fleet, rel);
             if (!hit || points.count({hit->first->motor.tag, hit->second->name})) {
                 rep.unmatched.push_back(rel.string());

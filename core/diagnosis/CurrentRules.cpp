@@ -77,6 +77,8 @@ std::vector<Finding> brokenRotorBarRule(const PhaseSetProducts& c, const std::ve
                                  t.brokenBarLoadSource + ")";
     }
     if (!finding.withheld && severity == 0) return {};
+    // A withheld verdict is worth saying only where there is something to withhold: sidebands.
+    if (finding.withheld && !lower.found && !upper.found) return {};
     finding.severity = finding.withheld ? 0 : severity;
     finding.confidence = finding.withheld ? 0.2 : std::min(0.95, 0.5 + 0.1 * (lower.found + upper.found) + 0.02 * std::max(0.0, 48 - meanDb));
     finding.evidence.push_back(currentLine("supply line f", fundamental, ref, c.name));

@@ -156,7 +156,7 @@ DiagnosisResult diagnose(const DiagnosisInput& in, const Thresholds& thresholds,
     op.point = motor::OperatingPoint{lineHz, speed.shaftHz, poles};
     op.speedMethod = speed.method;
     op.speedConfidence = speed.confidence;
-    op.loadPercent = motor::loadFromSlip(op.point.slip(), in.motor.nameplate);
+    op.loadPercent = motor::loadFromSlip(op.point.slip(), op.point.lineHz, in.motor.nameplate);
 
     const RuleContext ctx{in.motor, op.point, op.lineMethod == "current", op.loadPercent, thresholds, zoneBoundaries(in.motor.severity)};
     auto& ind = result.indicators;

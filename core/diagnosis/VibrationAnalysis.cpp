@@ -41,6 +41,11 @@ VibrationProducts analyseVibration(const VibrationInput& in, double envelopeFmax
         dsp::EnvelopeRequest e;
         e.autoBand = true;
         e.kurtogram.minBandwidthHz = envelopeFmaxHz;
+        // Bands reaching down among the running-speed harmonics and 2x line frequency would
+        // demodulate their beats (e.g. 2f - 1X) into false bearing lines; bearing resonances lie
+        // higher (Randall & Antoni 2011 remove the discrete part first; keeping the band above
+        // twice the envelope's fmax is this project's simpler guard, common practice).
+        e.kurtogram.minFrequencyHz = 2.0 * envelopeFmaxHz;
         e.kurtogram.maxFrequencyHz = fs / 2.0;
         e.squared = true;
         e.spectrum.fmaxHz = envelopeFmaxHz;

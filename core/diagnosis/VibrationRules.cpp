@@ -269,9 +269,10 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
                 const auto& env = ch.envelope->spectrum;
                 // A line on a running-speed harmonic belongs to the shaft, unless it sits closer to
                 // the defect line it was sought for (BPFI of 8-ball bearings falls near 5X).
+                // Half orders count too: looseness puts lines at every 0.5X.
                 const auto isShaftHarmonic = [&](double hz, double expected) {
-                    const double n = std::round(hz / fr);
-                    return n >= 1 && std::abs(hz - n * fr) < 0.003 * hz + env.resolutionHz && std::abs(hz - n * fr) < std::abs(hz - expected);
+                    const double n = std::round(2.0 * hz / fr) / 2.0;
+                    return n >= 0.5 && std::abs(hz - n * fr) < 0.003 * hz + env.resolutionHz && std::abs(hz - n * fr) < std::abs(hz - expected);
                 };
                 const auto fundamental = readLine(env, f0, t.bearingTolerance * f0, 2.0);
                 if (!fundamental.found || isShaftHarmonic(fundamental.measuredHz, f0)) continue;
@@ -292,9 +293,13 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
                 auto inVelocity = readLine(ch.velocity, fundamental.measuredHz, 2 * lineTolerance(ch.velocity, f0), 4.0);
                 // A line too small to matter in velocity does not count as the advanced stage.
                 if (inVelocity.amplitude * kMmPerM < 0.05 * ctx.zones.ab) inVelocity.found = false;
-                int severity = t.bearingProminence.severityOf(fundamental.prominence);
-                if (static_cast<int>(harmonics.size()) >= t.bearingPlanHarmonics) severity = std::max(severity, 2);
-                if (inVelocity.found) severity = std::min(3, std::max(severity, 2) + (severity >= 2 ? 1 : 0));
+                // Stages (common practice): a defect seen in the envelope only is at most "plan
+                // repair" - watch when it just stands out, plan when it is strong or has grown
+                // harmonics; "act now" needs it visible in the velocity spectrum as well.
+                int severity = std::min(2, t.bearingProminence.severityOf(fundamental.prominence));
+                if (static_cast<int>(harmonics.size()) >= t.bearingPlanHarmonics && fundamental.prominence >= t.bearingProminence.plan)
+                    severity = 2;
+                if (inVelocity.found) severity = severity >= 2 ? 3 : 2;
                 const int stage = inVelocity.found ? 3 : (harmonics.empty() ? 1 : 2);
 
                 Finding f;

@@ -154,10 +154,10 @@ std::optional<SpeedEstimate> speedFromSlipSidebands(const dsp::Spectrum& zoom, d
     return best;
 }
 
-std::optional<double> loadFromSlip(double slip, const Nameplate& n) {
+std::optional<double> loadFromSlip(double slip, double lineHz, const Nameplate& n) {
     const auto rated = ratedSlip(n);
-    if (!rated || !(*rated > 0)) return std::nullopt;
-    return std::max(0.0, 100.0 * slip / *rated);
+    if (!rated || !(*rated > 0) || !(n.supplyHz > 0)) return std::nullopt;
+    return std::max(0.0, 100.0 * (slip * lineHz) / (*rated * n.supplyHz));
 }
 
 } // namespace humwise::motor

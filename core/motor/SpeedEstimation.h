@@ -11,7 +11,10 @@
 //   slot harmonic principal slot harmonic f_sh, s = 1 - (p / R)(f_sh / f -+ nu) with nu = +-1
 //              (Hurst & Habetler 1996, from memory (verify); REFERENCE.md 5)
 //   sidebands  broken-bar / torque-oscillation sidebands (1 -+ 2s) f: s = delta_f / (2 f)
-// Load is estimated as slip / rated slip x 100 % (common practice (no source), REFERENCE.md 5).
+// Load is estimated from the slip frequency s f against the rated one s_rated f_rated: at
+// constant volts per hertz (direct-on-line, or a drive below base speed) the slip frequency, not
+// the slip, grows in proportion to torque (common practice (no source), REFERENCE.md 5 gives
+// the direct-on-line form slip / rated slip).
 
 #include "core/dsp/Spectrum.h"
 #include "core/motor/FaultFrequencies.h"
@@ -51,7 +54,8 @@ std::optional<SpeedEstimate> speedFromSlotHarmonic(const dsp::Spectrum& spectrum
 // `zoom`: a zoom spectrum of the current around f.
 std::optional<SpeedEstimate> speedFromSlipSidebands(const dsp::Spectrum& zoom, double lineHz, int poles, double maxSlip);
 
-// Load in percent from slip and the nameplate's rated slip; nullopt when the nameplate has no speed.
-std::optional<double> loadFromSlip(double slip, const Nameplate& nameplate);
+// Load in percent from slip at supply frequency `lineHz` and the nameplate's rated slip; nullopt
+// when the nameplate has no speed.
+std::optional<double> loadFromSlip(double slip, double lineHz, const Nameplate& nameplate);
 
 } // namespace humwise::motor

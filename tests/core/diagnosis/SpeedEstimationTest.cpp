@@ -81,7 +81,9 @@ TEST(SpeedEstimation, LoadFromSlip) {
     motor::Nameplate n;
     n.supplyHz = 50;
     n.ratedSpeedRpm = 1470;
-    EXPECT_NEAR(*motor::loadFromSlip(0.01, n), 50.0, 1e-9);
+    EXPECT_NEAR(*motor::loadFromSlip(0.01, 50.0, n), 50.0, 1e-9);
+    // A drive at 25 Hz: the same torque needs the same slip frequency, i.e. twice the slip.
+    EXPECT_NEAR(*motor::loadFromSlip(0.02, 25.0, n), 50.0, 1e-9);
     EXPECT_NEAR(motor::maxPlausibleSlip(n), 0.05, 1e-12);
 }
 

@@ -1,0 +1,71 @@
+#include "app/cli/BackupCommand.h"
+
+#include "app/cli/ArgParser.h"
+#include "app/cli/CliError.h"
+#include "app/cli/StoreCommands.h"
+#include "storage/Backup.h"
+#include "storage/Database.h"
+#include "storage/Schema.h"
+
+#include <cstdint>
+#include <filesystem>
+#include <string>
+#include <utility>
+
+namespace humwise::cli {
+namespace {
+
+namespace fs = std::filesystem;
+
+struct Target {
+    std::string file;   // the backup file
+    std::string db;     // the store
+    bool defaultDb;     // no --db given: the user's data directory
+};
+
+// "SUBCOMMAND FILE [--db PATH]".
+Target parse(const std::vector<std::string>& args, const char* sub) {
+    const ParsedArgs a(args, {{"db"}});
+    const auto& p = a.positional();
+    if (p.size() != 2 || p[0] != sub) throw UsageError(std::string("db ") + sub + " takes one file: db " + sub + " FILE [--db PATH]");
+    return {p[1], a.value("db").value_or(defaultDatabasePath()), !a.has("db")};
+}
+
+std::uintmax_t sizeOf(const std::string& file) {
+    std::error_code ec;
+    const auto n = fs::file_size(file, ec);
+    return ec ? 0 : n;
+}
+
+} // namespace
+
+int runDbBackup(const std::vector<std::string>& args, std::ostream& out) {
+    const auto [file, db, defaultDb] = parse(args, "backup");
+    if (!fs::exists(db)) throw ProcessingError(db + ": no such database");
+    try {
+        // Read-only: a backup never changes (or migrates) the store it copies.
+        storage::Database source(db, storage::Database::Mode::ReadOnly);
+        const int version = storage::schemaVersion(source);
+        storage::backupDatabase(source, file);
+        out << db << ": backed up to " << file << " (" << sizeOf(file) << " bytes, schema version " << version << ")\n";
+    } catch (const storage::StorageException& e) {
+        throw ProcessingError(e.error.message);
+    }
+    return kExitOk;
+}
+
+int runDbRestore(const std::vector<std::string>& args, std::ostream& out) {
+    const auto [file, db, defaultDb] = parse(args, "restore");
+    std::error_code ec;
+    if (defaultDb) fs::create_directories(fs::path(db).parent_path(), ec); // as the other store commands do
+    try {
+        storage::restoreDatabase(file, db);
+        storage::Database restored(db, storage::Database::Mode::ReadOnly);
+        out << db << ": restored from " << file << " (schema version " << storage::schemaVersion(restored) << ")\n";
+    } catch (const storage::StorageException& e) {
+        throw ProcessingError(e.error.message);
+    }
+    return kExitOk;
+}
+
+} // namespace humwise::cli

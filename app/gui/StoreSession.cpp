@@ -1,0 +1,37 @@
+#include "app/gui/StoreSession.h"
+
+namespace humwise::gui {
+
+StoreSession::StoreSession(QObject* parent) : QObject(parent) {}
+
+QString StoreSession::open(const QString& path) {
+    try {
+        auto store = storage::FleetStore::open(path.toStdString(), true);
+        m_store = std::move(store);
+        m_path = path;
+        reload();
+        return {};
+    } catch (const storage::StorageException& e) {
+        return QString::fromStdString(e.error.message);
+    }
+}
+
+void StoreSession::reload() {
+    if (!m_store) return;
+    try {
+        m_fleet = m_store->loadFleet();
+        m_rounds = m_store->rounds();
+        m_status = workflow::fleetStatus(*m_store);
+    } catch (const storage::StorageException&) {
+        // Keep what was loaded; the views keep working on it.
+    }
+    emit changed();
+}
+
+const workflow::MotorStatus* StoreSession::statusOf(const std::string& tag) const {
+    for (const auto& s : m_status)
+        if (s.tag == tag) return &s;
+    return nullptr;
+}
+
+} // namespace humwise::gui
