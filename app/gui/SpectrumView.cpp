@@ -198,6 +198,7 @@ void SpectrumView::reloadKinds() {
     const int i = m_kind->findData(keep);
     m_kind->setCurrentIndex(i >= 0 ? i : 0);
     m_quantity->setEnabled(m_kind->currentData().toString() == "velocity");
+    m_stored.reset(); // the previous point's spectrum is not this one's
     const QString k = currentKind();
     setLogarithmic(k == "zoom" || k == "current" || k == "voltage");
     load();
@@ -339,6 +340,11 @@ void SpectrumView::redraw() {
     }
     dsp::Spectrum s = *m_stored;
     const QString kind = currentKind();
+    const bool motion = s.quantity == Quantity::Acceleration || s.quantity == Quantity::Velocity || s.quantity == Quantity::Displacement;
+    if (kind == "velocity" && !motion) { // a stale spectrum of another kind: draw nothing rather than convert it
+        m_plot->replot();
+        return;
+    }
     Unit unit = siUnitOf(s.quantity);
     double power = 1; // the display value is SI value / factor^power
     if (kind == "velocity") {

@@ -232,3 +232,23 @@ TEST_F(Workbench, KeyboardMovesBetweenMotors) {
 
 } // namespace
 } // namespace humwise::gui
+
+namespace humwise::gui {
+namespace {
+
+// Regression: a zoomed current spectrum left on screen, then another motor chosen, made the
+// view convert the current spectrum as vibration (and the program stop).
+TEST_F(Workbench, SwitchingMotorsAfterACurrentZoomShowsTheNewMotorsVibration) {
+    MainWindow window(*session);
+    window.plantTree()->selectMotor("P-1");
+    SpectrumView* view = window.motorPage()->spectrum();
+    ASSERT_TRUE(view->showPoint("I-A", "zoom"));
+    EXPECT_TRUE(view->unitLabel().startsWith("A"));
+    window.plantTree()->selectMotor("P-2");
+    EXPECT_EQ(view->currentKind(), "velocity");
+    ASSERT_NE(view->displayed(), nullptr);
+    EXPECT_EQ(view->displayed()->quantity, Quantity::Velocity);
+}
+
+} // namespace
+} // namespace humwise::gui
