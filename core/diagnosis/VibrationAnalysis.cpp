@@ -13,6 +13,26 @@ std::string VibrationProducts::label() const {
     return input->name.empty() ? std::string(locationName(input->location)) + "-" + directionName(input->direction) : input->name;
 }
 
+namespace {
+
+// Envelope settings shared by the automatic band and a band given by the caller.
+dsp::EnvelopeRequest envelopeRequest(double envelopeFmaxHz, double fs) {
+    dsp::EnvelopeRequest e;
+    e.kurtogram.minBandwidthHz = envelopeFmaxHz;
+    // Bands reaching down among the running-speed harmonics and 2x line frequency would
+    // demodulate their beats (e.g. 2f - 1X) into false bearing lines; bearing resonances lie
+    // higher (Randall & Antoni 2011 remove the discrete part first; keeping the band above
+    // twice the envelope's fmax is this project's simpler guard, common practice).
+    e.kurtogram.minFrequencyHz = 2.0 * envelopeFmaxHz;
+    e.kurtogram.maxFrequencyHz = fs / 2.0;
+    e.squared = true;
+    e.spectrum.fmaxHz = envelopeFmaxHz;
+    e.spectrum.scale = dsp::SpectrumScale::Rms;
+    return e;
+}
+
+} // namespace
+
 VibrationProducts analyseVibration(const VibrationInput& in, double envelopeFmaxHz, bool slowMachine) {
     if (in.quantity != Quantity::Acceleration && in.quantity != Quantity::Velocity)
         throw std::invalid_argument("vibration channel '" + in.name + "' must be acceleration or velocity");
@@ -38,22 +58,21 @@ VibrationProducts analyseVibration(const VibrationInput& in, double envelopeFmax
     p.overallVelocityRms = dsp::bandRms(p.velocity, p.isoBandLowHz, p.isoBandHighHz);
 
     if (in.quantity == Quantity::Acceleration && fs / 2 > 2 * envelopeFmaxHz) {
-        dsp::EnvelopeRequest e;
+        dsp::EnvelopeRequest e = envelopeRequest(envelopeFmaxHz, fs);
         e.autoBand = true;
-        e.kurtogram.minBandwidthHz = envelopeFmaxHz;
-        // Bands reaching down among the running-speed harmonics and 2x line frequency would
-        // demodulate their beats (e.g. 2f - 1X) into false bearing lines; bearing resonances lie
-        // higher (Randall & Antoni 2011 remove the discrete part first; keeping the band above
-        // twice the envelope's fmax is this project's simpler guard, common practice).
-        e.kurtogram.minFrequencyHz = 2.0 * envelopeFmaxHz;
-        e.kurtogram.maxFrequencyHz = fs / 2.0;
-        e.squared = true;
-        e.spectrum.fmaxHz = envelopeFmaxHz;
-        e.spectrum.scale = dsp::SpectrumScale::Rms;
         auto env = dsp::envelopeSpectrum(in.samples, fs, e);
         if (env.ok()) p.envelope = std::move(env).value();
     }
     return p;
+}
+
+std::optional<dsp::EnvelopeResult> envelopeInBand(const VibrationInput& in, double envelopeFmaxHz, double bandLowHz, double bandHighHz) {
+    dsp::EnvelopeRequest e = envelopeRequest(envelopeFmaxHz, in.sampleRateHz);
+    e.bandLowHz = bandLowHz;
+    e.bandHighHz = bandHighHz;
+    auto env = dsp::envelopeSpectrum(in.samples, in.sampleRateHz, e);
+    if (!env.ok()) return std::nullopt;
+    return std::move(env).value();
 }
 
 } // namespace humwise::diagnosis

@@ -33,4 +33,8 @@ struct VibrationProducts {
 // Throws std::invalid_argument when the channel is unusable (too short, wrong quantity).
 VibrationProducts analyseVibration(const VibrationInput& input, double envelopeFmaxHz, bool slowMachine);
 
+// The channel's envelope spectrum in a band given by the caller (same settings otherwise), so
+// that two channels can be compared in one band. Empty when the band does not fit the channel.
+std::optional<dsp::EnvelopeResult> envelopeInBand(const VibrationInput& input, double envelopeFmaxHz, double bandLowHz, double bandHighHz);
+
 } // namespace humwise::diagnosis

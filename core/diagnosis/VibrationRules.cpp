@@ -238,8 +238,64 @@ std::vector<Finding> loosenessRule(const Channels& channels, const RuleContext& 
     return out;
 }
 
-std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& ctx) {
+// A bearing finding with the line it rests on, so that the two ends can be compared.
+struct BearingCandidate {
+    Finding finding;
+    double amplitude = 0;     // fundamental, squared-envelope units
+    double fundamentalHz = 0;
+    const char* name = "";
+    Location where = Location::DriveEnd;
+    const VibrationProducts* channel = nullptr; // where the fundamental was read
+};
+
+bool sameLine(const BearingCandidate& a, const BearingCandidate& b) {
+    return a.where != b.where && a.finding.fault == b.finding.fault && std::abs(a.fundamentalHz - b.fundamentalHz) <= 0.005 * a.fundamentalHz;
+}
+
+// The two channels' envelope line amplitudes at a's line, both demodulated in the wider of the
+// two bands their kurtograms chose: amplitudes from different bands do not compare (a narrow
+// band passes less of the impacts' energy).
+std::pair<double, double> amplitudesInOneBand(const BearingCandidate& a, const BearingCandidate& b) {
+    const auto& ea = *a.channel->envelope;
+    const auto& eb = *b.channel->envelope;
+    const auto& band = (ea.bandHighHz - ea.bandLowHz) >= (eb.bandHighHz - eb.bandLowHz) ? ea : eb;
+    const double fmax = ea.spectrum.frequencyHz(ea.spectrum.lineCount() - 1);
+    const auto read = [&](const BearingCandidate& c) {
+        const auto env = envelopeInBand(*c.channel->input, fmax, band.bandLowHz, band.bandHighHz);
+        return env ? readLine(env->spectrum, a.fundamentalHz, 2 * lineTolerance(env->spectrum, a.fundamentalHz), 0.0).amplitude : 0.0;
+    };
+    return {read(a), read(b)};
+}
+
+// Twin bearings (or any two whose defect lines coincide) put one defect on both ends' lines: it
+// reaches the far sensor through the frame, weaker. The same family on the same line at both
+// ends is one defect, placed at the end whose sensor reads it louder in a common band; the far
+// end is named in the explanation (common practice (no source): the sensor nearest the defect
+// reads it loudest).
+std::vector<Finding> placeDefectsAtTheirEnd(std::vector<BearingCandidate> candidates) {
+    std::vector<bool> farEnd(candidates.size(), false);
+    std::vector<std::string> notes(candidates.size());
+    for (std::size_t i = 0; i < candidates.size(); ++i)
+        for (std::size_t j = i + 1; j < candidates.size(); ++j) {
+            if (!sameLine(candidates[i], candidates[j])) continue;
+            const auto [ai, aj] = amplitudesInOneBand(candidates[i], candidates[j]);
+            const std::size_t near = aj > ai ? j : i, far = near == i ? j : i;
+            const double ratio = std::max(ai, aj) > 0 ? std::min(ai, aj) / std::max(ai, aj) : 1.0;
+            farEnd[far] = true;
+            notes[near] += std::string(" The line is also at the ") + (candidates[far].where == Location::DriveEnd ? "DE" : "NDE") +
+                           fmt(" sensor, at %.0f %% of this amplitude in the same band: heard through the frame.", 100 * ratio);
+        }
     std::vector<Finding> out;
+    for (std::size_t i = 0; i < candidates.size(); ++i) {
+        if (farEnd[i]) continue;
+        out.push_back(std::move(candidates[i].finding));
+        out.back().explanation += notes[i];
+    }
+    return out;
+}
+
+std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& ctx) {
+    std::vector<BearingCandidate> placed;
     const auto& t = ctx.thresholds;
     const double fr = ctx.op.shaftHz;
     struct Defect { const char* fault; const char* name; double factor; const char* sidebandName; double sidebandHz; const char* component; };
@@ -253,17 +309,13 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
             {"bearing_rolling_element", "2xBSF", 2 * bf.bsf, "FTF", bf.ftf * fr, "rolling element"},
             {"bearing_cage", "FTF", bf.ftf, nullptr, 0, "cage"},
         };
-        struct Candidate {
-            Finding finding;
-            double amplitude = 0;     // fundamental, squared-envelope units
-            double fundamentalHz = 0;
-            const char* name = "";
-        };
+        using Candidate = BearingCandidate;
         std::vector<Candidate> candidates;
         for (const Defect& d : defects) {
             const double f0 = d.factor * fr;
             Finding best;
             double bestProminence = 0, bestAmplitude = 0, bestHz = 0;
+            const VibrationProducts* bestChannel = nullptr;
             for (const auto& ch : channels) {
                 if (ch.input->location != where || !ch.envelope) continue;
                 const auto& env = ch.envelope->spectrum;
@@ -332,8 +384,9 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
                 bestProminence = fundamental.prominence;
                 bestAmplitude = fundamental.amplitude;
                 bestHz = fundamental.measuredHz;
+                bestChannel = &ch;
             }
-            if (bestProminence > 0 && best.severity >= 1) candidates.push_back({best, bestAmplitude, bestHz, d.name});
+            if (bestProminence > 0 && best.severity >= 1) candidates.push_back({best, bestAmplitude, bestHz, d.name, where, bestChannel});
         }
         // One bearing rarely has two defects at once: a family whose fundamental sits on a
         // harmonic of the dominant family's line or on a shaft-rate sideband of one is a
@@ -344,7 +397,7 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
                                                [](const Candidate& a, const Candidate& b) { return a.amplitude < b.amplitude; });
         for (auto& c : candidates) {
             if (&c == &*dominant) {
-                out.push_back(c.finding);
+                placed.push_back(c);
                 continue;
             }
             // Harmonics of the dominant line and their shaft-rate sidebands (h x f_d + m x fr).
@@ -360,10 +413,10 @@ std::vector<Finding> bearingRules(const Channels& channels, const RuleContext& c
                 c.finding.explanation += fmt(" Its lines are %.0f %% of the ", 100 * c.amplitude / dominant->amplitude) + dominant->name +
                                          " family's on the same bearing: possibly combination lines of that defect.";
             }
-            out.push_back(c.finding);
+            placed.push_back(c);
         }
     }
-    return out;
+    return placeDefectsAtTheirEnd(std::move(placed));
 }
 
 std::vector<Finding> electricalTwiceLineRule(const Channels& channels, const RuleContext& ctx) {

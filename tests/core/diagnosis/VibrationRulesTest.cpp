@@ -129,6 +129,41 @@ TEST(VibrationRules, InnerRaceDefectWithShaftSidebands) {
     EXPECT_TRUE(sideband) << describe(r);
 }
 
+// The same bearing type at both ends puts both ends' defect lines on one frequency; a defect at
+// the DE also reaches the NDE sensor through the frame, weaker. It is one defect, at the end
+// where its line is strongest, not two.
+TEST(VibrationRules, ADefectHeardAtBothEndsOfTwinBearingsIsPlacedAtTheLouderEnd) {
+    const auto bf = motor::factorsOf(*fourPoleMotor().driveEndBearing);
+    const double bpfo = bf.bpfo * kShaftHz;
+    for (const bool defectAtDe : {true, false}) {
+        const double deG = defectAtDe ? 3.0 : 1.0, ndeG = defectAtDe ? 1.0 : 3.0;
+        const auto r = run({vibrationChannel(withImpacts(bpfo, deG, 0.0, 21), Location::DriveEnd, Direction::Horizontal),
+                            vibrationChannel(withImpacts(bpfo, ndeG, 0.0, 22), Location::NonDriveEnd, Direction::Horizontal)});
+        int outerRace = 0;
+        for (const auto& f : r.findings) outerRace += f.fault == "bearing_outer_race";
+        ASSERT_EQ(outerRace, 1) << describe(r);
+        const Finding* f = findFault(r, "bearing_outer_race");
+        expectEvidenceNear(*f, defectAtDe ? "BPFO (DE) x1" : "BPFO (NDE) x1", bpfo, 0.02);
+        EXPECT_NE(f->explanation.find(defectAtDe ? "also at the NDE sensor" : "also at the DE sensor"), std::string::npos) << f->explanation;
+    }
+}
+
+// Two real defects, one per end, each louder at its own end, stay two findings when the bearing
+// types differ enough to separate their lines.
+TEST(VibrationRules, DefectsOnDifferentBearingsAtEachEndStaySeparate) {
+    auto m = fourPoleMotor();
+    const motor::Bearing nde{"6209", motor::BearingGeometry{9, 12.7, 65.0, 0.0}}; // BPFO 3.62 vs 3.03 x shaft
+    m.nonDriveEndBearing = nde;
+    const double bpfoDe = motor::factorsOf(*m.driveEndBearing).bpfo * kShaftHz;
+    const double bpfoNde = motor::factorsOf(nde).bpfo * kShaftHz;
+    const auto r = run({vibrationChannel(withImpacts(bpfoDe, 3.0, 0.0, 23), Location::DriveEnd, Direction::Horizontal),
+                        vibrationChannel(withImpacts(bpfoNde, 3.0, 0.0, 24), Location::NonDriveEnd, Direction::Horizontal)},
+                       m);
+    int outerRace = 0;
+    for (const auto& f : r.findings) outerRace += f.fault == "bearing_outer_race";
+    EXPECT_EQ(outerRace, 2) << describe(r);
+}
+
 // 2-pole motor: 2 x line frequency and 2X sit only 2 s f = 1 Hz apart (REFERENCE.md 9).
 TEST(VibrationRules, TwoPoleTwiceLineFrequencyIsResolvedFromTwoX) {
     const double f = 50.0, fr = 49.5; // s = 1 %
