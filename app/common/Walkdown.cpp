@@ -10,6 +10,7 @@
 
 #include <algorithm>
 #include <chrono>
+#include <deque>
 #include <future>
 #include <map>
 #include <set>
@@ -128,35 +129,40 @@ std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, cons
                           const std::vector<std::string>& motorTags, Loader&& load, const ProgressCallback& progress, unsigned threads,
                           std::size_t& findingsOut, std::vector<std::string>& notes) {
     if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
-    std::size_t analysed = 0;
-    for (std::size_t start = 0; start < motorTags.size(); start += threads) {
-        const std::size_t end = std::min(motorTags.size(), start + threads);
-        std::vector<std::future<std::pair<std::vector<PointRecording>, std::optional<MotorAnalysis>>>> jobs;
-        for (std::size_t i = start; i < end; ++i) {
-            const auto* motor = fleet.motor(motorTags[i]);
-            jobs.push_back(std::async(std::launch::async, [motor, &load]() {
-                std::vector<PointRecording> recs = load(*motor);
-                std::optional<MotorAnalysis> analysis;
-                try {
-                    analysis = analyseMotor(*motor, recs);
-                } catch (const std::invalid_argument&) {
-                    // Nothing usable: reported below.
-                }
-                for (auto& r : recs) r.samples = {}; // the products are all that is kept
-                return std::make_pair(std::move(recs), std::move(analysis));
-            }));
-        }
-        for (std::size_t i = start; i < end; ++i) {
-            auto [recs, analysis] = jobs[i - start].get();
-            if (analysis) {
-                storeAnalysis(store, roundId, *analysis, recs);
-                findingsOut += analysis->result.findings.size();
-                ++analysed;
-            } else {
-                notes.push_back(motorTags[i] + ": no usable recording, not analysed");
+    using Job = std::future<std::pair<std::vector<PointRecording>, std::optional<MotorAnalysis>>>;
+    const auto launch = [&](std::size_t i) {
+        const auto* motor = fleet.motor(motorTags[i]);
+        return std::async(std::launch::async, [motor, &load]() {
+            std::vector<PointRecording> recs = load(*motor);
+            std::optional<MotorAnalysis> analysis;
+            try {
+                analysis = analyseMotor(*motor, recs);
+            } catch (const std::invalid_argument&) {
+                // Nothing usable: reported below.
             }
-            if (!report(progress, i + 1, motorTags.size(), "analysing " + motorTags[i])) throw Cancelled{};
+            for (auto& r : recs) r.samples = {}; // the products are all that is kept
+            return std::make_pair(std::move(recs), std::move(analysis));
+        });
+    };
+    // A sliding window of `threads` motors in flight: the next motor starts as soon as one is
+    // collected, so the workers keep analysing while this thread (SQLite's one writer) stores
+    // the results, in route order.
+    std::deque<Job> inFlight;
+    std::size_t next = 0;
+    for (; next < std::min<std::size_t>(threads, motorTags.size()); ++next) inFlight.push_back(launch(next));
+    std::size_t analysed = 0;
+    for (std::size_t i = 0; i < motorTags.size(); ++i) {
+        auto [recs, analysis] = inFlight.front().get();
+        inFlight.pop_front();
+        if (next < motorTags.size()) inFlight.push_back(launch(next++));
+        if (analysis) {
+            storeAnalysis(store, roundId, *analysis, recs);
+            findingsOut += analysis->result.findings.size();
+            ++analysed;
+        } else {
+            notes.push_back(motorTags[i] + ": no usable recording, not analysed");
         }
+        if (!report(progress, i + 1, motorTags.size(), "analysing " + motorTags[i])) throw Cancelled{};
     }
     return analysed;
 }

@@ -59,9 +59,24 @@ std::mutex& plannerMutex() {
     static std::mutex m;
     return m;
 }
+// Plans live for the whole process and are destroyed at its exit (so that leak checkers see
+// every FFTW allocation returned). No transform may run during static destruction.
+struct PlanCache {
+    std::map<PlanKey, void*> plans;
+    PlanCache() = default;
+    PlanCache(const PlanCache&) = delete;
+    PlanCache& operator=(const PlanCache&) = delete;
+    ~PlanCache() {
+        for (const auto& [key, plan] : plans) {
+            if (std::get<2>(key)) fftw_destroy_plan(static_cast<fftw_plan>(plan));
+            else fftwf_destroy_plan(static_cast<fftwf_plan>(plan));
+        }
+    }
+};
+
 std::map<PlanKey, void*>& planCache() {
-    static std::map<PlanKey, void*> cache; // plans live for the whole process
-    return cache;
+    static PlanCache cache;
+    return cache.plans;
 }
 
 void checkSize(std::size_t n, const char* who) {
