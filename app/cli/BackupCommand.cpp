@@ -9,6 +9,7 @@
 
 #include <cstdint>
 #include <filesystem>
+#include <memory>
 #include <string>
 #include <utility>
 
@@ -43,10 +44,18 @@ int runDbBackup(const std::vector<std::string>& args, std::ostream& out) {
     const auto [file, db, defaultDb] = parse(args, "backup");
     if (!fs::exists(db)) throw ProcessingError(db + ": no such database");
     try {
-        // Read-only: a backup never changes (or migrates) the store it copies.
-        storage::Database source(db, storage::Database::Mode::ReadOnly);
-        const int version = storage::schemaVersion(source);
-        storage::backupDatabase(source, file);
+        // Never migrated or written. Opened read-write when it can be, so that closing the last
+        // connection folds the WAL back and removes the -wal and -shm files (a read-only
+        // connection leaves them behind); read-only for a file or folder that is.
+        std::unique_ptr<storage::Database> source;
+        try {
+            source = std::make_unique<storage::Database>(db, storage::Database::Mode::ReadWrite);
+        } catch (const storage::StorageException& e) {
+            if (e.error.code != storage::StorageError::Code::ReadOnly && e.error.code != storage::StorageError::Code::CannotOpen) throw;
+            source = std::make_unique<storage::Database>(db, storage::Database::Mode::ReadOnly);
+        }
+        const int version = storage::schemaVersion(*source);
+        storage::backupDatabase(*source, file);
         out << db << ": backed up to " << file << " (" << sizeOf(file) << " bytes, schema version " << version << ")\n";
     } catch (const storage::StorageException& e) {
         throw ProcessingError(e.error.message);

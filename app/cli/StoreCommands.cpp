@@ -1,6 +1,7 @@
 #include "app/cli/StoreCommands.h"
 
 #include "app/cli/ArgParser.h"
+#include "app/cli/BackupCommand.h"
 #include "app/cli/CliError.h"
 #include "app/common/Walkdown.h"
 #include "core/diagnosis/Finding.h"
@@ -145,8 +146,16 @@ std::string defaultDatabasePath() {
 }
 
 int runDb(const std::vector<std::string>& args, std::ostream& out) {
+    // The sub-command is the first word that is neither an option nor --db's value.
+    for (std::size_t i = 0; i < args.size(); ++i) {
+        if (args[i] == "--db") { ++i; continue; }
+        if (args[i] == "backup") return runDbBackup(args, out);
+        if (args[i] == "restore") return runDbRestore(args, out);
+        break;
+    }
     const ParsedArgs a(args, withDb({}));
-    if (a.positional().size() != 1 || a.positional().front() != "init") throw UsageError("db takes a sub-command: db init [--db PATH]");
+    if (a.positional().size() != 1 || a.positional().front() != "init")
+        throw UsageError("db takes a sub-command: db init | db backup FILE | db restore FILE [--db PATH]");
     auto store = openStore(a, true);
     out << store->database().path().string() << ": fleet store ready (schema version " << store->schemaVersion() << ")\n";
     return 0;

@@ -51,6 +51,9 @@ Commands:
 Fleet store (every command takes --db PATH; default $XDG_DATA_HOME/humwise/fleet.db or
 ~/.local/share/humwise/fleet.db):
   db init                       create (or migrate) the store
+  db backup FILE                copy the store into FILE (SQLite online backup; the store may
+                                stay in use meanwhile)
+  db restore FILE               check FILE and replace the store's content by it
   fleet import FILE | fleet export FILE
                                 the fleet file: site, areas, motors, points, routes (JSON)
   import FOLDER [--skip-bad] [--dry-run] [--replace] [--json]

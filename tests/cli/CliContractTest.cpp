@@ -10,6 +10,8 @@
 #include <algorithm>
 #include <cmath>
 #include <filesystem>
+#include <fstream>
+#include <iterator>
 #include <random>
 #include <sstream>
 #include <string>
@@ -411,6 +413,39 @@ TEST(Cli, SpectrumInDecibelsUsesTheIso1683Reference) {
     EXPECT_NEAR(j["peaks"].at(0)["amplitude"].number(), 139.83, 0.01);
     EXPECT_TRUE(contains(j["unit"].string(), "dB re 1e-06 m/s^2")) << j["unit"].string();
     EXPECT_EQ(runCli({"spectrum", path.string(), "--db", "--unit", "g"}).exitCode, kUsageError);
+}
+
+} // namespace
+} // namespace humwise::cli
+
+namespace humwise::cli {
+namespace {
+
+std::string fileBytes(const std::filesystem::path& p) {
+    std::ifstream in(p, std::ios::binary);
+    return {std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>()};
+}
+
+// db backup / db restore through the real binary: a restored store backs up to the same bytes.
+TEST(Cli, DbBackupAndRestoreRoundTripBitExact) {
+    const auto dir = test::outputDir() / "cli" / "backup";
+    std::filesystem::remove_all(dir);
+    std::filesystem::create_directories(dir);
+    const auto db = (dir / "store.db").string(), first = (dir / "first.backup").string();
+    const auto restored = (dir / "restored.db").string(), second = (dir / "second.backup").string();
+    ASSERT_EQ(runCli({"db", "init", "--db", db}).exitCode, 0);
+    const CliRun b = runCli({"db", "backup", first, "--db", db});
+    ASSERT_EQ(b.exitCode, 0) << b.err;
+    EXPECT_NE(b.out.find("backed up to " + first), std::string::npos) << b.out;
+    const CliRun r2 = runCli({"db", "--db", restored, "restore", first}); // --db may come first
+    EXPECT_NE(r2.out.find("restore"), std::string::npos) << r2.out;
+    ASSERT_EQ(r2.exitCode, 0) << r2.err;
+    ASSERT_EQ(runCli({"db", "backup", second, "--db", restored}).exitCode, 0);
+    EXPECT_EQ(fileBytes(first), fileBytes(second));
+    const CliRun missing = runCli({"db", "restore", (dir / "nope.backup").string(), "--db", restored});
+    EXPECT_EQ(missing.exitCode, kProcessingError);
+    EXPECT_NE(missing.err.find("nope.backup"), std::string::npos) << missing.err;
+    EXPECT_EQ(runCli({"db", "backup", "--db", db}).exitCode, kUsageError);
 }
 
 } // namespace

@@ -391,6 +391,7 @@ TEST(DbBackupCommand, BacksUpAndRestoresWithTheirMessages) {
     EXPECT_EQ(cli::runDbBackup({"backup", b.string(), "--db", p.string()}, out), 0);
     EXPECT_NE(out.str().find("backed up to " + b.string()), std::string::npos) << out.str();
     EXPECT_NE(out.str().find("schema version " + std::to_string(kSchemaVersion)), std::string::npos) << out.str();
+    EXPECT_FALSE(fs::exists(p.string() + "-wal")); // the store is left as tidy as it was
     const fs::path r = fresh("cli-restored.db");
     std::ostringstream out2;
     EXPECT_EQ(cli::runDbRestore({"--db", r.string(), "restore", b.string()}, out2), 0);
