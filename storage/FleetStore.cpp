@@ -116,6 +116,18 @@ std::unique_ptr<FleetStore> FleetStore::open(const std::filesystem::path& path, 
     return std::unique_ptr<FleetStore>(new FleetStore(std::move(db)));
 }
 
+std::unique_ptr<FleetStore> FleetStore::openReadOnly(const std::filesystem::path& path) {
+    auto db = std::make_unique<Database>(path, Database::Mode::ReadOnly);
+    const int version = storage::schemaVersion(*db);
+    if (version > kSchemaVersion) migrate(*db); // throws TooNew with its message, changes nothing
+    if (version < kSchemaVersion)
+        throw StorageException{{StorageError::Code::ReadOnly,
+                                path.string() + ": the store has schema version " + std::to_string(version) + " and needs upgrading to " +
+                                    std::to_string(kSchemaVersion) + ", which a read-only store cannot take; open it once with write access",
+                                0}};
+    return std::unique_ptr<FleetStore>(new FleetStore(std::move(db)));
+}
+
 std::int64_t FleetStore::motorId(const std::string& tag) {
     auto& s = m_db->cached("SELECT id FROM motors WHERE tag = ?1");
     s.bind(1, tag);

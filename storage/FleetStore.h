@@ -124,6 +124,10 @@ class FleetStore {
 public:
     // Opens (creating when asked) and migrates the database; throws StorageException.
     static std::unique_ptr<FleetStore> open(const std::filesystem::path& path, bool create = true);
+    // Opens an existing store for reading only (a file on a write-protected medium, or one to
+    // look at without any risk of change): never migrated; every write throws ReadOnly. Throws
+    // TooNew for a newer schema and ReadOnly for an older one (it would need migrating).
+    static std::unique_ptr<FleetStore> openReadOnly(const std::filesystem::path& path);
 
     Database& database() { return *m_db; }
     int schemaVersion() { return storage::schemaVersion(*m_db); }

@@ -252,7 +252,8 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         for (auto it = fs::recursive_directory_iterator(folder, ec); !ec && it != fs::recursive_directory_iterator(); it.increment(ec)) {
             if (!it->is_regular_file() || it->path() == manifestPath || !isRecordingFile(it->path()) || listed.count(it->path())) continue;
             const auto rel = it->path().lexically_relative(folder);
-            if (!inside(folder, fs::canonical(it->path(), ec))) {
+            std::error_code linkEc; // its own: the scan's ec must only end the scan on a scan error
+            if (!inside(folder, fs::canonical(it->path(), linkEc))) {
                 rep.bad.push_back({rel.string(), "outside_folder", "the file is a link out of the walkdown folder"});
                 continue;
             }

@@ -171,3 +171,40 @@ TEST(FleetStore, ConsistencyCheckSeesAMissingAnalysis) {
 
 } // namespace
 } // namespace humwise::storage
+
+namespace humwise::storage {
+namespace {
+
+// A store that cannot be written (opened read-only, as for a file on a write-protected medium):
+// every write is refused with ReadOnly and a message naming the file, reads keep working, and
+// nothing already stored is lost.
+TEST(FleetStoreProblems, AReadOnlyStoreRefusesWritesByNameAndKeepsItsData) {
+    const fs::path p = test::outputDir() / "storage" / "read-only.db";
+    {
+        auto s = freshStore("read-only.db");
+        Transaction tx(s->database());
+        addRound(*s, "2026-01-05T08:00:00Z", "kept");
+        tx.commit();
+    }
+    {
+        auto store = FleetStore::openReadOnly(p);
+        FleetStore& ro = *store;
+        EXPECT_EQ(ro.rounds().size(), 1u);
+        try {
+            Transaction tx(ro.database());
+            addRound(ro, "2026-02-05T08:00:00Z", "lost?");
+            tx.commit();
+            ADD_FAILURE() << "a read-only store took a write";
+        } catch (const StorageException& e) {
+            EXPECT_EQ(e.error.code, StorageError::Code::ReadOnly) << e.error.message;
+            EXPECT_NE(e.error.message.find("read-only.db"), std::string::npos) << e.error.message;
+        }
+    }
+    auto s = FleetStore::open(p, false);
+    EXPECT_TRUE(s->checkConsistency().empty());
+    ASSERT_EQ(s->rounds().size(), 1u);
+    EXPECT_EQ(s->rounds()[0].manifestHash, "kept");
+}
+
+} // namespace
+} // namespace humwise::storage
