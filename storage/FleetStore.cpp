@@ -21,28 +21,7 @@ const char* severityStandard(const motor::SeverityClass& s) {
     return s.standard == motor::SeverityClass::Standard::Iso20816_3 ? "ISO 20816-3" : "ISO 10816-1";
 }
 
-std::string drivenKindName(motor::DrivenKind k) {
-    switch (k) {
-    case motor::DrivenKind::None: return "none";
-    case motor::DrivenKind::CentrifugalPump: return "centrifugal-pump";
-    case motor::DrivenKind::Fan: return "fan";
-    case motor::DrivenKind::Blower: return "blower";
-    case motor::DrivenKind::Compressor: return "compressor";
-    case motor::DrivenKind::Conveyor: return "conveyor";
-    case motor::DrivenKind::Other: return "other";
-    }
-    return "other";
-}
-
-motor::DrivenKind drivenKindFrom(const std::string& s) {
-    if (s == "centrifugal-pump") return motor::DrivenKind::CentrifugalPump;
-    if (s == "fan") return motor::DrivenKind::Fan;
-    if (s == "blower") return motor::DrivenKind::Blower;
-    if (s == "compressor") return motor::DrivenKind::Compressor;
-    if (s == "conveyor") return motor::DrivenKind::Conveyor;
-    if (s == "other") return motor::DrivenKind::Other;
-    return motor::DrivenKind::None;
-}
+motor::DrivenKind drivenKindFrom(const std::string& s) { return motor::drivenKindFromName(s).value_or(motor::DrivenKind::None); }
 
 std::string evidenceJson(const std::vector<Evidence>& evidence) {
     std::ostringstream out;
@@ -190,7 +169,7 @@ void FleetStore::saveFleet(const fleet::Fleet& f) {
         m.bind(1, areaId.integer(0)).bind(2, static_cast<std::int64_t>(i)).bind(3, def.motor.tag).bind(4, def.description);
         m.bind(5, n.ratedPowerKw).bind(6, n.ratedVoltageV).bind(7, n.ratedCurrentA).bind(8, n.supplyHz).bind(9, n.ratedSpeedRpm);
         m.bind(10, n.poles).bind(11, n.drive == motor::DriveKind::DirectOnLine ? "direct-on-line" : "drive-fed");
-        m.bind(12, n.rotorBars).bind(13, n.statorSlots).bind(14, drivenKindName(def.motor.driven.kind));
+        m.bind(12, n.rotorBars).bind(13, n.statorSlots).bind(14, motor::drivenKindName(def.motor.driven.kind));
         m.bind(15, def.motor.driven.vanesOrBlades).bind(16, def.motor.driven.speedRatio).bind(17, severityStandard(sev));
         if (iso3) m.bind(18, sev.group).bind(19, sev.support == motor::SupportClass::Rigid ? "rigid" : "flexible").bindNull(20);
         else m.bindNull(18).bindNull(19).bind(20, sev.iso10816Class);

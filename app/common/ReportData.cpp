@@ -213,8 +213,8 @@ MotorSheet buildMotorSheet(storage::FleetStore& store, const std::string& tag, s
             t.limitSource = l.source;
         }
         if (t.alarm && t.days.size() >= 3) {
-            const std::size_t n = std::min<std::size_t>(4, t.days.size());
-            const std::vector<double> d(t.days.end() - static_cast<std::ptrdiff_t>(n), t.days.end()), v(t.values.end() - static_cast<std::ptrdiff_t>(n), t.values.end());
+            const auto recent = static_cast<std::ptrdiff_t>(std::min<std::size_t>(4, t.days.size()));
+            const std::vector<double> d(t.days.end() - recent, t.days.end()), v(t.values.end() - recent, t.values.end());
             if (const auto p = trend::project(d, v, *t.alarm, trend::Model::Linear)) t.crossingDay = p->crossingDay;
             t.model = "linear least-squares fit of the last 4 rounds";
         }

@@ -91,27 +91,8 @@ motor::Bearing bearing(const Value& v, const std::string& where) {
 }
 
 motor::DrivenKind drivenKind(const Value& v, const std::string& s) {
-    if (s == "none") return motor::DrivenKind::None;
-    if (s == "centrifugal-pump") return motor::DrivenKind::CentrifugalPump;
-    if (s == "fan") return motor::DrivenKind::Fan;
-    if (s == "blower") return motor::DrivenKind::Blower;
-    if (s == "compressor") return motor::DrivenKind::Compressor;
-    if (s == "conveyor") return motor::DrivenKind::Conveyor;
-    if (s == "other") return motor::DrivenKind::Other;
+    if (const auto k = motor::drivenKindFromName(s)) return *k;
     bad(v, "driven.kind '" + s + "' is not none, centrifugal-pump, fan, blower, compressor, conveyor or other");
-}
-
-const char* drivenName(motor::DrivenKind k) {
-    switch (k) {
-    case motor::DrivenKind::None: return "none";
-    case motor::DrivenKind::CentrifugalPump: return "centrifugal-pump";
-    case motor::DrivenKind::Fan: return "fan";
-    case motor::DrivenKind::Blower: return "blower";
-    case motor::DrivenKind::Compressor: return "compressor";
-    case motor::DrivenKind::Conveyor: return "conveyor";
-    case motor::DrivenKind::Other: return "other";
-    }
-    return "other";
 }
 
 fleet::PointDefinition point(const Value& v, const std::string& where) {
@@ -317,7 +298,7 @@ std::string writeFleet(const Fleet& f) {
             w.endObject();
         }
         w.key("driven").beginObject();
-        w.field("kind", drivenName(m.motor.driven.kind));
+        w.field("kind", motor::drivenKindName(m.motor.driven.kind));
         if (m.motor.driven.vanesOrBlades) w.field("vanes", *m.motor.driven.vanesOrBlades);
         w.field("speed_ratio", m.motor.driven.speedRatio);
         w.endObject();

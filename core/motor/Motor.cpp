@@ -13,7 +13,29 @@ std::string num(double v) {
     return buf;
 }
 
+constexpr DrivenKind kDrivenKinds[] = {DrivenKind::None,       DrivenKind::CentrifugalPump, DrivenKind::Fan,  DrivenKind::Blower,
+                                       DrivenKind::Compressor, DrivenKind::Conveyor,        DrivenKind::Other};
+
 } // namespace
+
+const char* drivenKindName(DrivenKind kind) {
+    switch (kind) {
+    case DrivenKind::None: return "none";
+    case DrivenKind::CentrifugalPump: return "centrifugal-pump";
+    case DrivenKind::Fan: return "fan";
+    case DrivenKind::Blower: return "blower";
+    case DrivenKind::Compressor: return "compressor";
+    case DrivenKind::Conveyor: return "conveyor";
+    case DrivenKind::Other: return "other";
+    }
+    return "other";
+}
+
+std::optional<DrivenKind> drivenKindFromName(std::string_view name) {
+    for (const DrivenKind k : kDrivenKinds)
+        if (name == drivenKindName(k)) return k;
+    return std::nullopt;
+}
 
 double synchronousSpeedRpm(double supplyHz, int poles) { return 120.0 * supplyHz / poles; }
 

@@ -7,6 +7,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <variant>
 #include <vector>
 
@@ -50,6 +51,11 @@ struct Bearing {
 };
 
 enum class DrivenKind { None, CentrifugalPump, Fan, Blower, Compressor, Conveyor, Other };
+
+// The kind's name in the fleet file and the store ("centrifugal-pump", ...), and back; nullopt
+// for a name that is none of them.
+const char* drivenKindName(DrivenKind kind);
+std::optional<DrivenKind> drivenKindFromName(std::string_view name);
 
 struct DrivenMachine {
     DrivenKind kind = DrivenKind::None;

@@ -130,3 +130,20 @@ TEST(Validation, ImpossibleNameplatesAreRefused) {
 
 } // namespace
 } // namespace humwise::motor
+
+namespace humwise::motor {
+namespace {
+
+// One naming of driven kinds serves the fleet file and the store: every kind round-trips, and
+// a foreign name is refused rather than guessed.
+TEST(DrivenKindNames, RoundTripAndRefuseUnknownNames) {
+    for (const DrivenKind k : {DrivenKind::None, DrivenKind::CentrifugalPump, DrivenKind::Fan, DrivenKind::Blower, DrivenKind::Compressor,
+                               DrivenKind::Conveyor, DrivenKind::Other})
+        EXPECT_EQ(drivenKindFromName(drivenKindName(k)), k) << drivenKindName(k);
+    EXPECT_STREQ(drivenKindName(DrivenKind::CentrifugalPump), "centrifugal-pump");
+    EXPECT_EQ(drivenKindFromName("pump"), std::nullopt);
+    EXPECT_EQ(drivenKindFromName(""), std::nullopt);
+}
+
+} // namespace
+} // namespace humwise::motor
