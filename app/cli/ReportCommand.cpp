@@ -2,7 +2,7 @@
 
 #include "app/cli/ArgParser.h"
 #include "app/cli/CliError.h"
-#include "app/cli/StoreCommands.h"
+#include "app/cli/StoreAccess.h"
 #include "app/common/ReportData.h"
 #include "storage/FleetStore.h"
 
@@ -13,49 +13,8 @@
 #endif
 
 #include <cstdlib>
-#include <filesystem>
-#include <fstream>
 
 namespace humwise::cli {
-namespace {
-
-namespace fs = std::filesystem;
-
-std::unique_ptr<storage::FleetStore> openExisting(const ParsedArgs& a) {
-    const std::string path = a.value("db").value_or(defaultDatabasePath());
-    if (!fs::exists(path)) throw ProcessingError(path + ": no such database");
-    try {
-        return storage::FleetStore::open(path, false);
-    } catch (const storage::StorageException& e) {
-        throw ProcessingError(e.error.message);
-    }
-}
-
-std::int64_t roundId(storage::FleetStore& store, const std::string& which) {
-    const auto rounds = store.rounds();
-    if (rounds.empty()) throw ProcessingError("the store holds no round yet");
-    if (which == "latest") return rounds.back().id;
-    std::vector<std::int64_t> hits;
-    for (const auto& r : rounds)
-        if (r.startedAt.rfind(which, 0) == 0 || std::to_string(r.id) == which) hits.push_back(r.id);
-    if (hits.size() != 1) throw UsageError("'" + which + "' names " + std::to_string(hits.size()) + " rounds; give latest, a full date or a round id");
-    return hits.front();
-}
-
-void writeFile(const std::string& path, const std::string& content) {
-    const std::string partial = path + ".part";
-    {
-        std::ofstream f(partial, std::ios::binary | std::ios::trunc);
-        if (!f) throw ProcessingError(path + ": cannot write the file");
-        f << content;
-        if (!f.flush()) throw ProcessingError(path + ": writing failed (disk full?)");
-    }
-    std::error_code ec;
-    fs::rename(partial, path, ec);
-    if (ec) throw ProcessingError(path + ": " + ec.message());
-}
-
-} // namespace
 
 int runReport(const std::vector<std::string>& args, std::ostream& out) {
     const ParsedArgs a(args, {{"db"}, {"motor"}, {"round"}, {"out"}, {"paper"}, {"comment"}});
@@ -65,8 +24,8 @@ int runReport(const std::vector<std::string>& args, std::ostream& out) {
     const std::string paper = a.value("paper").value_or("a4");
     if (paper != "a4" && paper != "letter") throw UsageError("--paper is a4 or letter");
 #ifdef HUMWISE_HAVE_REPORT
-    auto store = openExisting(a);
-    const std::int64_t round = roundId(*store, a.value("round").value_or("latest"));
+    auto store = openStore(a, false);
+    const std::int64_t round = pickRound(*store, a.value("round").value_or("latest")).id;
     if (!std::getenv("DISPLAY") && !std::getenv("WAYLAND_DISPLAY")) setenv("QT_QPA_PLATFORM", "offscreen", 0);
     static int argc = 1;
     static char name[] = "humwise-cli";
@@ -98,7 +57,7 @@ int runExport(const std::vector<std::string>& args, std::ostream& out) {
     const ParsedArgs a(args, {{"db"}, {"round"}, {"what"}, {"out"}, {"trend", false}, {"motor"}, {"point"}, {"indicator"}});
     if (!a.positional().empty()) throw UsageError("export takes options only");
     if (!a.has("out")) throw UsageError("export needs --out FILE.csv");
-    auto store = openExisting(a);
+    auto store = openStore(a, false);
     std::string csv;
     try {
         if (a.has("trend")) {
@@ -106,7 +65,7 @@ int runExport(const std::vector<std::string>& args, std::ostream& out) {
             csv = workflow::trendCsv(store->trend(*a.value("motor"), a.value("point").value_or(""), *a.value("indicator")));
         } else {
             const std::string what = a.value("what").value_or("findings");
-            const std::int64_t round = roundId(*store, a.value("round").value_or("latest"));
+            const std::int64_t round = pickRound(*store, a.value("round").value_or("latest")).id;
             if (what == "findings") csv = workflow::findingsCsv(*store, round);
             else if (what == "indicators") csv = workflow::indicatorsCsv(*store, round);
             else throw UsageError("--what is findings or indicators");
@@ -114,7 +73,7 @@ int runExport(const std::vector<std::string>& args, std::ostream& out) {
     } catch (const storage::StorageException& e) {
         throw ProcessingError(e.error.message);
     }
-    writeFile(*a.value("out"), csv);
+    writeFileWhole(*a.value("out"), csv);
     out << *a.value("out") << ": written\n";
     return 0;
 }

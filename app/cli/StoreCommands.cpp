@@ -3,6 +3,7 @@
 #include "app/cli/ArgParser.h"
 #include "app/cli/BackupCommand.h"
 #include "app/cli/CliError.h"
+#include "app/cli/StoreAccess.h"
 #include "app/common/Walkdown.h"
 #include "core/diagnosis/Finding.h"
 #include "core/dsp/SpectrumCompare.h"
@@ -28,44 +29,8 @@ std::vector<OptionSpec> withDb(std::vector<OptionSpec> specs) {
     return specs;
 }
 
-std::unique_ptr<storage::FleetStore> openStore(const ParsedArgs& a, bool create) {
-    const std::string path = a.value("db").value_or(defaultDatabasePath());
-    if (!a.has("db")) {
-        std::error_code ec;
-        fs::create_directories(fs::path(path).parent_path(), ec);
-    }
-    if (!create && !fs::exists(path)) throw ProcessingError(path + ": no such database (create it with 'humwise-cli db init --db " + path + "')");
-    try {
-        return storage::FleetStore::open(path, create);
-    } catch (const storage::StorageException& e) {
-        throw ProcessingError(e.error.message);
-    }
-}
-
-template <class F>
-auto guarded(F&& f) {
-    try {
-        return f();
-    } catch (const storage::StorageException& e) {
-        throw ProcessingError(e.error.message);
-    }
-}
-
 void noPositional(const ParsedArgs& a, const char* command) {
     if (!a.positional().empty()) throw UsageError(std::string(command) + " takes no argument '" + a.positional().front() + "'");
-}
-
-// "latest", a round id, or a date prefix (2026-03 or 2026-03-04) naming exactly one round.
-storage::RoundRow pickRound(storage::FleetStore& store, const std::string& which) {
-    const auto rounds = store.rounds();
-    if (rounds.empty()) throw ProcessingError("the store holds no round yet");
-    if (which == "latest") return rounds.back();
-    std::vector<storage::RoundRow> hits;
-    for (const auto& r : rounds)
-        if (r.startedAt.rfind(which, 0) == 0 || std::to_string(r.id) == which) hits.push_back(r);
-    if (hits.empty()) throw UsageError("no round matches '" + which + "' (give latest, a round id or a date such as 2026-03-04)");
-    if (hits.size() > 1) throw UsageError("'" + which + "' matches " + std::to_string(hits.size()) + " rounds; give the full date or the round id");
-    return hits.front();
 }
 
 class ProgressLine {
@@ -139,12 +104,6 @@ void writeReport(std::ostream& out, const workflow::ImportReport& r, bool json) 
 
 } // namespace
 
-std::string defaultDatabasePath() {
-    if (const char* xdg = std::getenv("XDG_DATA_HOME"); xdg && *xdg) return (fs::path(xdg) / "humwise" / "fleet.db").string();
-    if (const char* home = std::getenv("HOME"); home && *home) return (fs::path(home) / ".local" / "share" / "humwise" / "fleet.db").string();
-    return "humwise-fleet.db";
-}
-
 int runDb(const std::vector<std::string>& args, std::ostream& out) {
     // The sub-command is the first word that is neither an option nor --db's value.
     for (std::size_t i = 0; i < args.size(); ++i) {
@@ -183,16 +142,7 @@ int runFleet(const std::vector<std::string>& args, std::ostream& out) {
     auto store = openStore(a, false);
     const auto fleet = guarded([&] { return store->loadFleet(); });
     const std::string text = io::writeFleet(fleet);
-    const fs::path tmp = fs::path(file).string() + ".part";
-    {
-        std::ofstream f(tmp, std::ios::binary);
-        if (!f) throw ProcessingError(file + ": cannot write the file");
-        f << text;
-        if (!f.flush()) throw ProcessingError(file + ": writing failed (disk full?)");
-    }
-    std::error_code ec;
-    fs::rename(tmp, file, ec); // whole file or nothing
-    if (ec) throw ProcessingError(file + ": " + ec.message());
+    writeFileWhole(file, text);
     out << file << ": " << fleet.motors.size() << " motor(s) written\n";
     return 0;
 }

@@ -3,6 +3,8 @@
 // findings, trend, compare. All take --db PATH (default: the user's data directory,
 // $XDG_DATA_HOME/humwise/fleet.db or ~/.local/share/humwise/fleet.db).
 
+#include "app/cli/StoreAccess.h"
+
 #include <ostream>
 #include <string>
 #include <vector>
@@ -18,7 +20,5 @@ int runRounds(const std::vector<std::string>& args, std::ostream& out);
 int runFindings(const std::vector<std::string>& args, std::ostream& out);
 int runTrend(const std::vector<std::string>& args, std::ostream& out);
 int runCompare(const std::vector<std::string>& args, std::ostream& out);
-
-std::string defaultDatabasePath();
 
 } // namespace humwise::cli
