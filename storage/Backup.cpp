@@ -8,6 +8,8 @@
 #include <unistd.h>
 
 #include <chrono>
+#include <cstring>
+#include <fstream>
 #include <string>
 #include <system_error>
 #include <thread>
@@ -20,22 +22,6 @@ namespace fs = std::filesystem;
 using Code = StorageError::Code;
 
 constexpr int kBusyTimeoutMs = 5000; // as Database's default
-
-Code codeFor(int rc) {
-    switch (rc & 0xff) {
-    case SQLITE_CANTOPEN: return Code::CannotOpen;
-    case SQLITE_NOTADB:
-    case SQLITE_CORRUPT: return Code::Corrupt;
-    case SQLITE_READONLY:
-    case SQLITE_PERM:
-    case SQLITE_AUTH: return Code::ReadOnly;
-    case SQLITE_BUSY:
-    case SQLITE_LOCKED: return Code::Busy;
-    case SQLITE_FULL: return Code::Full;
-    case SQLITE_IOERR: return Code::Io;
-    default: return Code::Internal;
-    }
-}
 
 [[noreturn]] void raise(Code code, std::string message) { throw StorageException{{code, std::move(message), 0}}; }
 
@@ -66,7 +52,8 @@ public:
 
     StorageError error(int rc, const std::string& what) const {
         const char* detail = m_db ? sqlite3_errmsg(m_db) : sqlite3_errstr(rc);
-        return {codeFor(rc), m_path.string() + ": " + what + ": " + (detail ? detail : sqlite3_errstr(rc)), rc};
+        const Code code = codeForSqlite(rc);
+        return {code, m_path.string() + ": " + what + ": " + (detail ? detail : sqlite3_errstr(rc)) + adviceFor(code), rc};
     }
 
     // Runs one statement (SQL text of this file only, no parameters) and returns the first
@@ -123,7 +110,6 @@ void copyPages(sqlite3* source, Connection& dest, const std::string& what) {
     if (rc == SQLITE_DONE && finish == SQLITE_OK) return;
     const int code = rc != SQLITE_DONE ? rc : finish;
     StorageError e = dest.error(code, what);
-    if (e.code == Code::Busy) e.message += " (the database is locked by another process; try again when it is done)";
     throw StorageException{e};
 }
 
@@ -159,6 +145,37 @@ bool same(const fs::path& a, const fs::path& b) {
     return fs::exists(a, ec) && fs::exists(b, ec) && fs::equivalent(a, b, ec);
 }
 
+// Writes a copy of `source` into the new file `to` (through "<to>.part", then a rename): one
+// self-contained file in rollback-journal mode, integrity-checked before it is put in place.
+void copyIntoNewFile(sqlite3* source, const std::string& failure, const fs::path& to, const std::string& role) {
+    std::error_code ec;
+    const fs::path part = to.string() + ".part";
+    Cleanup cleanup(part);
+    cleanup.removeNow(); // left by an earlier run that was killed
+    {
+        Connection dest(part, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE, role);
+        copyPages(source, dest, failure);
+        // One self-contained file: no -wal/-shm needed to read it, read-only media included.
+        const auto mode = dest.rows("PRAGMA journal_mode = DELETE");
+        if (mode.size() != 1 || mode.front() != "delete")
+            raise(Code::Internal, part.string() + ": cannot switch the copy to a rollback journal");
+        checkIntegrity(dest);
+        dest.close();
+    }
+    fs::rename(part, to, ec);
+    if (ec) raise(Code::Io, to.string() + ": cannot put the copy in place: " + ec.message());
+    cleanup.release();
+    syncFolder(to.parent_path());
+}
+
+// True when the file starts with SQLite's header string (https://www.sqlite.org/fileformat.html,
+// 1.3: "SQLite format 3\0"); an empty file counts as no database either.
+bool hasSqliteHeader(const fs::path& file) {
+    std::ifstream in(file, std::ios::binary);
+    char header[16] = {};
+    return in.read(header, sizeof header) && std::memcmp(header, "SQLite format 3", 16) == 0;
+}
+
 } // namespace
 
 void backupDatabase(Database& from, const fs::path& to) {
@@ -168,32 +185,13 @@ void backupDatabase(Database& from, const fs::path& to) {
     if (fs::is_directory(to, ec)) raise(Code::Invalid, to.string() + ": is a folder; give a file name for the backup");
     if (sqlite3_get_autocommit(from.handle()) == 0)
         raise(Code::Invalid, from.path().string() + ": a transaction is open on this connection; back up outside a transaction");
-    const fs::path part = to.string() + ".part";
-    Cleanup cleanup(part);
-    cleanup.removeNow(); // left by an earlier backup that was killed
-    {
-        Connection dest(part, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE, "the backup");
-        copyPages(from.handle(), dest, "cannot back up " + from.path().string());
-        // One self-contained file: no -wal/-shm needed to read it, read-only media included.
-        const auto mode = dest.rows("PRAGMA journal_mode = DELETE");
-        if (mode.size() != 1 || mode.front() != "delete")
-            raise(Code::Internal, part.string() + ": cannot switch the backup to a rollback journal");
-        checkIntegrity(dest);
-        dest.close();
-    }
-    fs::rename(part, to, ec);
-    if (ec) raise(Code::Io, to.string() + ": cannot put the backup in place: " + ec.message());
-    cleanup.release();
-    syncFolder(to.parent_path());
+    copyIntoNewFile(from.handle(), "cannot back up " + from.path().string(), to, "the backup");
 }
 
-void restoreDatabase(const fs::path& backup, const fs::path& to) {
+void checkBackupFile(const fs::path& backup) {
     std::error_code ec;
     if (!fs::exists(backup, ec)) raise(Code::NotFound, backup.string() + ": no such backup file");
     if (!fs::is_regular_file(backup, ec)) raise(Code::Invalid, backup.string() + ": not a file");
-    if (same(backup, to)) raise(Code::Invalid, to.string() + ": the backup and the database are the same file");
-    if (fs::is_directory(to, ec)) raise(Code::Invalid, to.string() + ": is a folder, not a database file");
-
     Connection source(backup, SQLITE_OPEN_READONLY, "the backup");
     try {
         checkIntegrity(source);
@@ -209,7 +207,22 @@ void restoreDatabase(const fs::path& backup, const fs::path& to) {
     const auto rounds = source.rows("SELECT COUNT(*) FROM sqlite_schema WHERE type = 'table' AND name = 'rounds'");
     if (v < 1 || rounds.empty() || rounds.front() != "1")
         raise(Code::Invalid, backup.string() + ": not a Humwise fleet store (schema version " + std::to_string(v) + ", no rounds table) - nothing was changed");
+}
 
+void restoreDatabase(const fs::path& backup, const fs::path& to) {
+    std::error_code ec;
+    if (same(backup, to)) raise(Code::Invalid, to.string() + ": the backup and the database are the same file");
+    if (fs::is_directory(to, ec)) raise(Code::Invalid, to.string() + ": is a folder, not a database file");
+    checkBackupFile(backup);
+    Connection source(backup, SQLITE_OPEN_READONLY, "the backup");
+
+    if (fs::exists(to, ec) && !hasSqliteHeader(to)) {
+        // Not a database at all (overwritten, truncated): no connection can be using it, so it
+        // is replaced as a file, and any -wal/-shm beside it (stale) goes.
+        for (const char* suffix : {"-wal", "-shm"}) fs::remove(to.string() + suffix, ec);
+        copyIntoNewFile(source.handle(), "cannot restore " + backup.string() + " into the database (it is unchanged)", to, "the database");
+        return;
+    }
     const bool created = !fs::exists(to, ec);
     Cleanup cleanup(to);
     if (!created) cleanup.release(); // never remove a database that was there before

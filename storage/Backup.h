@@ -32,6 +32,9 @@ namespace humwise::storage {
 // refused when it is the source itself).
 void backupDatabase(Database& from, const std::filesystem::path& to);
 
+// The checks restoreDatabase makes on a backup file before anything is changed (see above).
+void checkBackupFile(const std::filesystem::path& backup);
+
 // Replaces the content of the database `to` by that of the backup file `backup`.
 void restoreDatabase(const std::filesystem::path& backup, const std::filesystem::path& to);
 

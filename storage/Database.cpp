@@ -5,9 +5,7 @@
 #include <utility>
 
 namespace humwise::storage {
-namespace {
-
-StorageError::Code codeFor(int rc) {
+StorageError::Code codeForSqlite(int rc) {
     switch (rc & 0xff) {
     case SQLITE_CANTOPEN: return StorageError::Code::CannotOpen;
     case SQLITE_NOTADB: return StorageError::Code::Corrupt;
@@ -24,7 +22,12 @@ StorageError::Code codeFor(int rc) {
     }
 }
 
-} // namespace
+const char* adviceFor(StorageError::Code code) {
+    switch (code) {
+    case StorageError::Code::Busy: return " (the database is locked by another process that is writing to it; try again when it is done)";
+    default: return "";
+    }
+}
 
 const char* codeName(StorageError::Code code) {
     using C = StorageError::Code;
@@ -88,10 +91,10 @@ Statement& Database::cached(const char* sql) {
 
 StorageError Database::errorFrom(int rc, std::string_view what) const {
     StorageError e;
-    e.code = codeFor(rc);
+    e.code = codeForSqlite(rc);
     e.sqliteCode = rc;
     const char* detail = m_db ? sqlite3_errmsg(m_db) : sqlite3_errstr(rc);
-    e.message = m_path.string() + ": " + std::string(what) + ": " + (detail ? detail : sqlite3_errstr(rc));
+    e.message = m_path.string() + ": " + std::string(what) + ": " + (detail ? detail : sqlite3_errstr(rc)) + adviceFor(e.code);
     return e;
 }
 

@@ -38,6 +38,31 @@ std::uintmax_t sizeOf(const std::string& file) {
     return ec ? 0 : n;
 }
 
+// Copies the store about to be replaced to "<db>.before-restore" (replacing an older one): with
+// the backup API when the store can be read, else byte for byte (a damaged store is often the
+// reason for a restore, and its pages may still matter). Returns the copy's name.
+std::string keepSafetyCopy(const std::string& db) {
+    const std::string copy = db + ".before-restore";
+    try {
+        storage::Database current(db, storage::Database::Mode::ReadOnly);
+        storage::backupDatabase(current, copy);
+        return copy;
+    } catch (const storage::StorageException&) {
+        // fall through to the byte copy
+    }
+    std::error_code ec;
+    for (const char* suffix : {"", "-wal"}) {
+        const std::string from = db + suffix;
+        if (suffix[0] && !fs::exists(from)) {
+            fs::remove(copy + suffix, ec);
+            continue;
+        }
+        fs::copy_file(from, copy + suffix, fs::copy_options::overwrite_existing, ec);
+        if (ec) throw ProcessingError(db + ": cannot keep a copy of the store before restoring (" + ec.message() + "); nothing was changed");
+    }
+    return copy;
+}
+
 } // namespace
 
 int runDbBackup(const std::vector<std::string>& args, std::ostream& out) {
@@ -68,6 +93,8 @@ int runDbRestore(const std::vector<std::string>& args, std::ostream& out) {
     std::error_code ec;
     if (defaultDb) fs::create_directories(fs::path(db).parent_path(), ec); // as the other store commands do
     try {
+        storage::checkBackupFile(file); // refuse a bad backup before touching anything
+        if (sizeOf(db) > 0) out << db << ": the store as it was is kept in " << keepSafetyCopy(db) << '\n';
         storage::restoreDatabase(file, db);
         storage::Database restored(db, storage::Database::Mode::ReadOnly);
         out << db << ": restored from " << file << " (schema version " << storage::schemaVersion(restored) << ")\n";

@@ -5,8 +5,9 @@
 //   backup   copies the store (default: defaultDatabasePath()) into FILE with SQLite's online
 //            backup API while other processes may keep using the store; FILE is written whole
 //            or not at all (replaced when it exists).
-//   restore  checks FILE (integrity, a Humwise store, schema not newer than this program) and
-//            replaces the content of the store by it (created when missing).
+//   restore  checks FILE (integrity, a Humwise store, schema not newer than this program), keeps
+//            the store as it was in "<store>.before-restore" (replacing an older one), then
+//            replaces the content of the store by FILE (created when missing).
 // Throws UsageError for a wrong command line and ProcessingError (the file and the problem)
 // when the store or the file cannot be used; returns 0 on success.
 

@@ -442,9 +442,18 @@ TEST(Cli, DbBackupAndRestoreRoundTripBitExact) {
     ASSERT_EQ(r2.exitCode, 0) << r2.err;
     ASSERT_EQ(runCli({"db", "backup", second, "--db", restored}).exitCode, 0);
     EXPECT_EQ(fileBytes(first), fileBytes(second));
+    // Restoring over a store that holds something keeps that store first, and says where.
+    ASSERT_EQ(runCli({"db", "init", "--db", (dir / "other.db").string()}).exitCode, 0);
+    const CliRun over = runCli({"db", "restore", (dir / "other.db").string(), "--db", restored});
+    ASSERT_EQ(over.exitCode, 0) << over.err;
+    EXPECT_NE(over.out.find("kept in " + restored + ".before-restore"), std::string::npos) << over.out;
+    const auto third = (dir / "third.backup").string();
+    ASSERT_EQ(runCli({"db", "backup", third, "--db", restored + ".before-restore"}).exitCode, 0);
+    EXPECT_EQ(fileBytes(first), fileBytes(third)); // the safety copy is the store as it was
     const CliRun missing = runCli({"db", "restore", (dir / "nope.backup").string(), "--db", restored});
     EXPECT_EQ(missing.exitCode, kProcessingError);
     EXPECT_NE(missing.err.find("nope.backup"), std::string::npos) << missing.err;
+    EXPECT_EQ(missing.out.find("kept in"), std::string::npos) << "no safety copy for a refused restore: " << missing.out;
     EXPECT_EQ(runCli({"db", "backup", "--db", db}).exitCode, kUsageError);
 }
 

@@ -35,7 +35,7 @@ fs::path dir() {
 
 fs::path fresh(const std::string& name) {
     const fs::path p = dir() / name;
-    for (const char* suffix : {"", "-wal", "-shm", "-journal", ".part"}) fs::remove(p.string() + suffix);
+    for (const char* suffix : {"", "-wal", "-shm", "-journal", ".part", ".before-restore", ".before-restore-wal"}) fs::remove(p.string() + suffix);
     return p;
 }
 
@@ -381,6 +381,24 @@ TEST(Restore, IntoAMissingFolderFailsAndCreatesNothing) {
     EXPECT_FALSE(fs::exists(target));
 }
 
+// The usual reason for a restore: the store file was overwritten. It is no database any more, so
+// it is replaced as a file (its stale -wal with it) and the result is the backup's content.
+TEST(Restore, ReplacesAFileThatIsNoDatabaseAnyMore) {
+    const fs::path p = populatedStore("for-trashed.db", 1);
+    const fs::path b = fresh("for-trashed.backup");
+    {
+        auto s = FleetStore::open(p, false);
+        backupDatabase(s->database(), b);
+    }
+    const fs::path target = fresh("trashed.db");
+    test::writeText(target, std::string(5000, 'x'));
+    test::writeText(target.string() + "-wal", "stale");
+    restoreDatabase(b, target);
+    EXPECT_FALSE(fs::exists(target.string() + "-wal"));
+    EXPECT_EQ(dumpFile(target), dumpFile(p));
+    EXPECT_TRUE(FleetStore::open(target, false)->checkConsistency().empty());
+}
+
 // --- humwise-cli db backup / db restore, in process (main.cpp turns the exceptions into the
 // exit codes: UsageError 2, ProcessingError 1).
 
@@ -396,6 +414,17 @@ TEST(DbBackupCommand, BacksUpAndRestoresWithTheirMessages) {
     std::ostringstream out2;
     EXPECT_EQ(cli::runDbRestore({"--db", r.string(), "restore", b.string()}, out2), 0);
     EXPECT_NE(out2.str().find("restored from " + b.string()), std::string::npos) << out2.str();
+    EXPECT_EQ(dumpFile(r), dumpFile(p));
+    EXPECT_FALSE(fs::exists(r.string() + ".before-restore")); // there was nothing to keep
+    // Over a trashed store: its bytes are kept as they were (no database to back up), then replaced.
+    const std::string trash(6000, '#');
+    test::writeText(r, trash);
+    fs::remove(r.string() + "-wal");
+    std::ostringstream out3;
+    EXPECT_EQ(cli::runDbRestore({"restore", b.string(), "--db", r.string()}, out3), 0);
+    EXPECT_NE(out3.str().find("kept in " + r.string() + ".before-restore"), std::string::npos) << out3.str();
+    const auto kept = bytesOf(r.string() + ".before-restore");
+    EXPECT_EQ(std::string(kept.begin(), kept.end()), trash);
     EXPECT_EQ(dumpFile(r), dumpFile(p));
 }
 
