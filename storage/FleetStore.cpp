@@ -549,11 +549,18 @@ std::vector<TrendPoint> FleetStore::trend(const std::string& motorTag, const std
     return out;
 }
 
+bool FleetStore::clearAlarmLimit(const std::string& motorTag, const std::string& pointName, const std::string& indicator) {
+    const auto mid = motorId(motorTag);
+    const auto pid = pointId(mid, pointName);
+    auto del = m_db->prepare("DELETE FROM alarm_limits WHERE motor_id = ?1 AND point_id IS ?2 AND indicator = ?3");
+    del.bind(1, mid).bind(2, pid).bind(3, indicator).run();
+    return m_db->changes() > 0;
+}
+
 void FleetStore::setAlarmLimit(const AlarmLimitRow& a) {
+    clearAlarmLimit(a.motorTag, a.pointName, a.indicator);
     const auto mid = motorId(a.motorTag);
     const auto pid = pointId(mid, a.pointName);
-    auto del = m_db->prepare("DELETE FROM alarm_limits WHERE motor_id = ?1 AND point_id IS ?2 AND indicator = ?3");
-    del.bind(1, mid).bind(2, pid).bind(3, a.indicator).run();
     auto s = m_db->prepare(R"SQL(INSERT INTO alarm_limits(motor_id, point_id, indicator, method, alert, alarm, baseline_rounds, source, updated_at)
         VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9))SQL");
     s.bind(1, mid).bind(2, pid).bind(3, a.indicator).bind(4, a.method).bind(5, a.alert).bind(6, a.alarm);

@@ -166,7 +166,10 @@ public:
     // One indicator of one motor (and point) across all rounds, oldest first.
     std::vector<TrendPoint> trend(const std::string& motorTag, const std::string& pointName, const std::string& indicator);
 
+    // The analyst's limits of one (point, indicator): set replaces any earlier ones; clear removes
+    // them (the defaults apply again) and says whether there were any.
     void setAlarmLimit(const AlarmLimitRow& limit);
+    bool clearAlarmLimit(const std::string& motorTag, const std::string& pointName, const std::string& indicator);
     std::vector<AlarmLimitRow> alarmLimits(const std::string& motorTag);
 
     // Folds the write-ahead log into the database file (after a bulk build).

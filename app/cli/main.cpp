@@ -5,6 +5,7 @@
 #include "app/cli/DiagnoseCommand.h"
 #include "app/cli/FaultsCommand.h"
 #include "app/cli/InspectCommand.h"
+#include "app/cli/LimitsCommand.h"
 #include "app/cli/ReportCommand.h"
 #include "app/cli/SampleFleetCommand.h"
 #include "app/cli/SpectrumCommand.h"
@@ -53,7 +54,8 @@ Fleet store (every command takes --db PATH; default $XDG_DATA_HOME/humwise/fleet
   db init                       create (or migrate) the store
   db backup FILE                copy the store into FILE (SQLite online backup; the store may
                                 stay in use meanwhile)
-  db restore FILE               check FILE and replace the store's content by it
+  db restore FILE               check FILE, keep the store as it was in STORE.before-restore,
+                                then replace the store's content by FILE
   fleet import FILE | fleet export FILE
                                 the fleet file: site, areas, motors, points, routes (JSON)
   import FOLDER [--skip-bad] [--dry-run] [--replace] [--json]
@@ -65,6 +67,12 @@ Fleet store (every command takes --db PATH; default $XDG_DATA_HOME/humwise/fleet
   compare --motor TAG --point NAME --round A --round B [--kind velocity|envelope|current|zoom]
           [--grow-db DB] [--json]
                                 order-normalised comparison: the lines that appeared or grew
+  limits [--motor TAG] [--json]  the alarm limits in force at the latest round (stored or default)
+  limits set --motor TAG [--point NAME] --indicator NAME --alarm X [--alert Y]
+  limits clear --motor TAG [--point NAME] --indicator NAME
+  limits suggest --method iso-zone|statistical|percent [--motor TAG] [--indicator NAME]
+                 [--baseline N] [--store]
+                                limits from the first N rounds (6); --store keeps them, all or none
 
 Reports:
   report --motor TAG [--round latest|DATE|ID] --out FILE.pdf [--paper a4|letter] [--comment TEXT]
@@ -119,6 +127,7 @@ int main(int argc, char** argv) {
         if (command == "findings") return runFindings(args, std::cout);
         if (command == "trend") return runTrend(args, std::cout);
         if (command == "compare") return runCompare(args, std::cout);
+        if (command == "limits") return runLimits(args, std::cout);
         if (command == "sample-fleet") return runSampleFleet(args, std::cout);
         if (command == "report") return runReport(args, std::cout);
         if (command == "export") return runExport(args, std::cout);

@@ -1,6 +1,7 @@
 #include "app/common/ReportData.h"
 
 #include "app/common/FleetStatus.h"
+#include "app/common/LimitRules.h"
 #include "app/common/StoredData.h"
 #include "core/diagnosis/Thresholds.h"
 #include "core/trend/AlarmLimits.h"
@@ -186,32 +187,15 @@ MotorSheet buildMotorSheet(storage::FleetStore& store, const std::string& tag, s
         TrendPanel t;
         t.title = indicator + " " + point;
         t.unit = pts.front().unit;
-        std::vector<double> baseline;
         for (const auto& p : pts) {
             if (p.startedAt > round->startedAt) break;
             t.days.push_back(daysOf(p.startedAt));
             t.values.push_back(p.value);
-            if (baseline.size() < 6) baseline.push_back(p.value);
         }
-        for (const auto& l : store.alarmLimits(tag))
-            if (l.pointName == point && l.indicator == indicator) {
-                t.alert = l.alert;
-                t.alarm = l.alarm;
-                t.limitSource = l.method + ": " + l.source;
-            }
-        if (!t.alarm && indicator == "velocity_rms" && !baseline.empty()) {
-            double mean = 0;
-            for (double v : baseline) mean += v;
-            const auto l = trend::isoZoneLimits(mean / static_cast<double>(baseline.size()), diagnosis::zoneBoundaries(def->motor.severity));
-            t.alert = l.alert;
-            t.alarm = l.alarm;
-            t.limitSource = l.source;
-        } else if (!t.alarm && baseline.size() >= 2 && indicator != "sideband_db") {
-            const auto l = trend::statisticalLimits(baseline);
-            t.alert = l.alert;
-            t.alarm = l.alarm;
-            t.limitSource = l.source;
-        }
+        const auto limits = effectiveLimits(store, *def, point, indicator, t.values);
+        t.alert = limits.alert;
+        t.alarm = limits.alarm;
+        t.limitSource = limits.method.empty() ? limits.source : limits.method + ": " + limits.source;
         if (t.alarm && t.days.size() >= 3) {
             const auto recent = static_cast<std::ptrdiff_t>(std::min<std::size_t>(4, t.days.size()));
             const std::vector<double> d(t.days.end() - recent, t.days.end()), v(t.values.end() - recent, t.values.end());

@@ -1,5 +1,6 @@
 #include "app/gui/HistoryView.h"
 
+#include "app/common/LimitRules.h"
 #include "app/common/StoredData.h"
 #include "app/gui/PlotStyle.h"
 #include "core/util/Text.h"
@@ -27,22 +28,6 @@ double epochSeconds(const std::string& iso) {
 }
 
 } // namespace
-
-trend::Limits limitsFor(storage::FleetStore& store, const fleet::MotorDefinition& motor, const std::string& point, const std::string& indicator,
-                        const std::vector<storage::TrendPoint>& history) {
-    for (const auto& l : store.alarmLimits(motor.motor.tag))
-        if (l.pointName == point && l.indicator == indicator) return {l.alert, l.alarm, l.method, l.source};
-    std::vector<double> baseline;
-    for (std::size_t i = 0; i < history.size() && i < 6; ++i) baseline.push_back(history[i].value);
-    if (baseline.empty()) return {};
-    if (indicator == "velocity_rms") {
-        double mean = 0;
-        for (double v : baseline) mean += v;
-        return trend::isoZoneLimits(mean / static_cast<double>(baseline.size()), diagnosis::zoneBoundaries(motor.motor.severity));
-    }
-    if (baseline.size() >= 2) return trend::statisticalLimits(baseline);
-    return {};
-}
 
 HistoryView::HistoryView(StoreSession& session, QWidget* parent) : QWidget(parent), m_session(session) {
     m_point = new QComboBox;
@@ -212,7 +197,7 @@ void HistoryView::loadTrend() {
     const std::string point = m_point->currentData().toString().toStdString(), indicator = m_indicator->currentText().toStdString();
     try {
         m_points = m_session.store().trend(m_tag.toStdString(), point, indicator);
-        if (def) m_limits = limitsFor(m_session.store(), *def, point, indicator, m_points);
+        if (def) m_limits = workflow::effectiveLimits(m_session.store(), *def, point, indicator, workflow::valuesOf(m_points));
     } catch (const storage::StorageException& e) {
         m_note->setText(QString::fromStdString(e.error.message));
         return;

@@ -47,9 +47,4 @@ private:
     double m_lastDay = 0;
 };
 
-// The limits in force for an indicator: the analyst's stored ones, else for overall velocity the
-// ISO-zone limits over the first rounds' mean, else statistical limits over the first six rounds.
-trend::Limits limitsFor(storage::FleetStore& store, const fleet::MotorDefinition& motor, const std::string& point,
-                        const std::string& indicator, const std::vector<storage::TrendPoint>& history);
-
 } // namespace humwise::gui

@@ -1,5 +1,6 @@
 #include "app/gui/LimitsView.h"
 
+#include "app/common/LimitRules.h"
 #include "app/gui/HistoryView.h"
 #include "core/util/Text.h"
 
@@ -62,15 +63,13 @@ void LimitsView::reload() {
         std::set<std::pair<std::string, std::string>> keys;
         for (const auto& i : store.indicators(m_session.rounds().back().id, def->motor.tag)) keys.insert({i.pointName, i.name});
         for (const auto& [point, name] : keys) {
-            if (name != "velocity_rms" && name != "env_bpfo" && name != "env_bpfi" && name != "sideband_db" && name != "1x" && name != "2lf" &&
-                name != "negative_sequence_ratio" && name != "current_unbalance")
-                continue; // the indicators worth a limit; the rest stay in the trends
+            if (!workflow::deservesLimit(name)) continue; // the rest stay in the trends
             const int row = m_table->rowCount();
             m_table->insertRow(row);
             m_table->setItem(row, Point, new QTableWidgetItem(QString::fromStdString(point)));
             m_table->setItem(row, Indicator, new QTableWidgetItem(QString::fromStdString(name)));
             const auto history = store.trend(def->motor.tag, point, name);
-            const auto l = limitsFor(store, *def, point, name, history);
+            const auto l = workflow::effectiveLimits(store, *def, point, name, workflow::valuesOf(history));
             m_table->setItem(row, Method, new QTableWidgetItem(QString::fromStdString(l.method)));
             m_table->setItem(row, Alert, new QTableWidgetItem(l.alert ? QString::number(*l.alert, 'g', 4) : QString()));
             m_table->setItem(row, Alarm, new QTableWidgetItem(l.alarm ? QString::number(*l.alarm, 'g', 4) : QString()));
@@ -87,15 +86,9 @@ QString LimitsView::suggest(int row, const QString& method) {
     if (!def || row < 0 || row >= m_table->rowCount()) return tr("No such row");
     const std::string point = m_table->item(row, Point)->text().toStdString(), name = m_table->item(row, Indicator)->text().toStdString();
     const auto history = m_session.store().trend(def->motor.tag, point, name);
-    std::vector<double> baseline;
-    for (std::size_t i = 0; i < history.size() && i < 6; ++i) baseline.push_back(history[i].value);
-    if (baseline.size() < 2) return tr("Not enough rounds for a baseline");
-    double mean = 0;
-    for (double v : baseline) mean += v;
-    mean /= static_cast<double>(baseline.size());
-    trend::Limits l = method == "iso-zone" ? trend::isoZoneLimits(mean, diagnosis::zoneBoundaries(def->motor.severity))
-                      : method == "statistical" ? trend::statisticalLimits(baseline)
-                                                : trend::percentLimits(mean);
+    const auto suggested = workflow::suggestLimits(*def, name, method.toStdString(), workflow::valuesOf(history));
+    if (!suggested) return QString::fromStdString(suggested.error());
+    const trend::Limits& l = suggested.value();
     m_table->item(row, Method)->setText(QString::fromStdString(l.method));
     m_table->item(row, Alert)->setText(l.alert ? QString::number(*l.alert, 'g', 4) : QString());
     m_table->item(row, Alarm)->setText(l.alarm ? QString::number(*l.alarm, 'g', 4) : QString());

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <stdexcept>
 #include <vector>
 
@@ -16,19 +17,26 @@ Limits isoZoneLimits(double baseline, const diagnosis::ZoneBoundaries& z) {
     return l;
 }
 
-Limits statisticalLimits(std::span<const double> b) {
+Limits statisticalLimits(std::span<const double> b, double minSpreadFraction) {
     if (b.size() < 2) throw std::invalid_argument("statisticalLimits: at least two baseline values are needed");
     double mean = 0;
     for (double v : b) mean += v;
     mean /= static_cast<double>(b.size());
     double ss = 0;
     for (double v : b) ss += (v - mean) * (v - mean);
-    const double sd = std::sqrt(ss / static_cast<double>(b.size() - 1));
+    const double measured = std::sqrt(ss / static_cast<double>(b.size() - 1));
+    const double floor = minSpreadFraction * std::abs(mean);
+    const double sd = std::max(measured, floor);
     Limits l;
     l.method = "statistical";
     l.alert = mean + 2 * sd;
     l.alarm = mean + 3 * sd;
     l.source = "mean + 2 / 3 standard deviations of the baseline rounds (common practice, no source)";
+    if (floor > measured) {
+        char buf[96];
+        std::snprintf(buf, sizeof buf, "; spread taken as %.0f %% of the mean, the baseline scattering less", 100 * minSpreadFraction);
+        l.source += buf;
+    }
     return l;
 }
 

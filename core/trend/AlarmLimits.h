@@ -28,7 +28,10 @@ struct Limits {
 };
 
 Limits isoZoneLimits(double baseline, const diagnosis::ZoneBoundaries& zones);
-Limits statisticalLimits(std::span<const double> baseline); // needs at least 2 values
+// Needs at least 2 values. The standard deviation is taken as at least minSpreadFraction x |mean|:
+// a baseline that happens to repeat almost exactly would otherwise put both limits on top of the
+// mean, and ordinary route-to-route scatter would raise alarms (the floor is common practice).
+Limits statisticalLimits(std::span<const double> baseline, double minSpreadFraction = 0.0);
 Limits percentLimits(double baseline, double alertPercent = 25.0, double alarmFactor = 2.0);
 
 enum class Model { Linear, Exponential };

@@ -2,6 +2,7 @@
 // the findings back from the store, and compare them with truth.json (which only this test
 // reads). Also: the bad recording is flagged, the power-off pair separates the electrical line,
 // the generation is deterministic. Timings are reported, never asserted.
+#include "app/common/LimitRules.h"
 #include "app/common/Walkdown.h"
 #include "core/diagnosis/Diagnose.h"
 #include "core/io/FileBytes.h"
@@ -366,6 +367,31 @@ void checkNoUnexpectedFindings(const World& w) {
             }
 }
 
+// The default alarm limits (app/common/LimitRules.h) over the stored trends: no healthy motor
+// crosses an alarm limit in any round, and the seeded bearing faults are over theirs by the end.
+void checkDefaultLimits(const World& w) {
+    auto store = storage::FleetStore::open(w.root / "fleet.db", false);
+    const auto rounds = store->rounds();
+    const auto overAlarm = [&](const std::string& tag, const std::string& point, const std::string& indicator, std::size_t upTo) {
+        const auto history = workflow::valuesOf(store->trend(tag, point, indicator));
+        if (history.size() < upTo) return false;
+        const std::span<const double> seen(history.data(), upTo);
+        const auto l = workflow::defaultLimits(*w.fleet.motor(tag), indicator, seen);
+        return l.alarm && seen.back() >= *l.alarm;
+    };
+    std::size_t checked = 0;
+    for (const auto& tag : w.truth.healthy)
+        for (const auto& i : store->indicators(rounds.back().id, tag)) {
+            if (!workflow::deservesLimit(i.name)) continue;
+            for (std::size_t r = 1; r <= rounds.size(); ++r, ++checked)
+                EXPECT_FALSE(overAlarm(tag, i.pointName, i.name, r)) << tag << ' ' << i.pointName << ' ' << i.name << " round " << r;
+        }
+    EXPECT_GT(checked, 100u);
+    EXPECT_TRUE(overAlarm("P-101", "DE-H", "env_bpfo", rounds.size()));
+    EXPECT_TRUE(overAlarm("B-201", "NDE-H", "env_bpfi", rounds.size()));
+    EXPECT_TRUE(overAlarm("F-301", "DE-H", "1x", rounds.size()));
+}
+
 void checkPowerOffPair(const World& w) {
     const fs::path folder = w.summary.walkdowns.at(static_cast<std::size_t>(w.truth.powerOffRound - 1));
     const auto* m = w.fleet.motor(w.truth.powerOffMotor);
@@ -445,6 +471,7 @@ TEST(SampleFleet, EndToEndAgainstTheTruth) {
         {"withheld verdict", checkWithheldVerdict},
         {"healthy motors", checkHealthyMotors},
         {"no unexpected findings", checkNoUnexpectedFindings},
+        {"default limits", checkDefaultLimits},
         {"power-off pair", checkPowerOffPair},
         {"determinism", checkDeterminism},
     };

@@ -17,6 +17,18 @@ TEST(AlarmLimits, Statistical) {
     EXPECT_NEAR(*l.alert, 2.2828, 1e-4);
     EXPECT_NEAR(*l.alarm, 2.4243, 1e-4);
     EXPECT_THROW(statisticalLimits(std::vector<double>{1.0}), std::invalid_argument);
+    // The floor binds only when the baseline scatters less than it: here sd 0.1414 > 5 % of 2.0.
+    EXPECT_NEAR(*statisticalLimits(b, 0.05).alert, 2.2828, 1e-4);
+}
+
+TEST(AlarmLimits, StatisticalSpreadFloorKeepsLimitsOffAnExactlyRepeatingBaseline) {
+    const std::vector<double> flat{0.70, 0.70, 0.70, 0.70};
+    const auto bare = statisticalLimits(flat);
+    EXPECT_DOUBLE_EQ(*bare.alert, 0.70); // no spread: both limits on the mean
+    const auto floored = statisticalLimits(flat, 0.10);
+    EXPECT_NEAR(*floored.alert, 0.84, 1e-12); // 0.70 + 2 x 0.07
+    EXPECT_NEAR(*floored.alarm, 0.91, 1e-12); // 0.70 + 3 x 0.07
+    EXPECT_NE(floored.source.find("10 % of the mean"), std::string::npos) << floored.source;
 }
 
 TEST(AlarmLimits, IsoZoneGuidance) {
