@@ -1,5 +1,6 @@
 #pragma once
-// SHA-256 (FIPS 180-4), for content-addressing raw recordings and identifying walkdowns.
+// SHA-256 (FIPS 180-4), for content-addressing raw recordings and identifying walkdowns. Uses the
+// processor's SHA extensions when it has them (core/util/Sha256Blocks.h).
 
 #include <array>
 #include <cstddef>
@@ -19,7 +20,7 @@ public:
     std::string finishHex();
 
 private:
-    void block(const std::uint8_t* p);
+    void blocks(const std::uint8_t* p, std::size_t count);
     std::array<std::uint32_t, 8> m_h;
     std::array<std::uint8_t, 64> m_buffer{};
     std::size_t m_used = 0;
