@@ -25,7 +25,10 @@ Result<Spectrum, AnalysisError> zoomSpectrum(std::span<const double> x, double f
     }
     nfft = nextFastFftSize(nfft);
 
-    const std::vector<double> w = makeWindow(r.window, n);
+    // Cached: a route zooms every motor's current records, all of one length (the window of
+    // 200 000 points costs 800 000 cosines to build).
+    const auto window = cachedWindow(r.window, n);
+    const std::vector<double>& w = *window;
     double s1 = 0, s2 = 0, mean = 0;
     for (std::size_t i = 0; i < n; ++i) {
         s1 += w[i];
