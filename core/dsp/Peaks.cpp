@@ -4,6 +4,7 @@
 #include <cmath>
 #include <complex>
 #include <map>
+#include <memory>
 #include <mutex>
 #include <numbers>
 #include <span>
@@ -103,6 +104,79 @@ double windowKernel(const WindowSpec& spec, std::size_t n, double d) {
     return cosineSumResponse(a, nd, d) / cosineSumResponse(a, nd, 0.0);
 }
 
+namespace {
+
+// r(d) = |W(1 - d)| / |W(d)|, the ratio of the two largest lines of a tone d lines (0 <= d <= 0.5)
+// from the larger one, tabulated on a fine grid once per window and offset scale: it rises
+// monotonically from r(0) to r(0.5) = 1, so a measured ratio is bracketed by table lookup and
+// then solved exactly by a few secant steps (instead of 40 bisection steps of exact
+// kernel evaluations per peak).
+class RatioTable {
+public:
+    static constexpr std::size_t kSteps = 512;
+    RatioTable(const WindowSpec& w, std::size_t n, double scale) : m_window(w), m_n(n), m_scale(scale), m_r(kSteps + 1) {
+        for (std::size_t i = 0; i <= kSteps; ++i) m_r[i] = exact(offsetAt(i));
+        m_monotonic = std::is_sorted(m_r.begin(), m_r.end());
+    }
+    double kernel(double d) const { return windowKernel(m_window, m_n, d * m_scale); }
+    double exact(double d) const { return kernel(1.0 - d) / kernel(d); }
+    static double offsetAt(std::size_t i) { return 0.5 * static_cast<double>(i) / kSteps; }
+    // The offset d whose ratio is r (r within [r(0), 1]).
+    double solve(double r) const {
+        if (!m_monotonic) return bisect(r);
+        const auto it = std::upper_bound(m_r.begin(), m_r.end(), r);
+        if (it == m_r.begin()) return 0.0;
+        if (it == m_r.end()) return 0.5;
+        const auto i = static_cast<std::size_t>(it - m_r.begin()) - 1;
+        const double a = offsetAt(i), b = offsetAt(i + 1);
+        // Secant steps from the table's two bracketing points (smooth and nearly linear over one
+        // grid step: each step squares the error, roughly), kept inside the bracket.
+        double x0 = a, f0 = m_r[i] - r, x1 = b, f1 = m_r[i + 1] - r;
+        double d = a;
+        for (int step = 0; step < 6 && f1 != f0; ++step) {
+            d = std::clamp(x1 - f1 * (x1 - x0) / (f1 - f0), a, b);
+            if (std::abs(d - x1) < 1e-15) break;
+            x0 = x1;
+            f0 = f1;
+            x1 = d;
+            f1 = exact(d) - r;
+        }
+        return d;
+    }
+
+private:
+    // The flat-top's kernel ripples (within 0.0044 dB) over its flat main lobe, so its ratio is
+    // not monotonic and the table cannot bracket: plain bisection on the exact ratio there.
+    double bisect(double r) const {
+        if (r <= exact(0.0)) return 0.0;
+        double lo = 0.0, hi = 0.5;
+        for (int it = 0; it < 40; ++it) (exact(0.5 * (lo + hi)) < r ? lo : hi) = 0.5 * (lo + hi);
+        return 0.5 * (lo + hi);
+    }
+    WindowSpec m_window;
+    std::size_t m_n;
+    double m_scale;
+    std::vector<double> m_r;
+    bool m_monotonic = true;
+};
+
+std::shared_ptr<const RatioTable> ratioTable(const WindowSpec& w, std::size_t n, double scale) {
+    using Key = std::tuple<int, double, std::size_t, double>;
+    static std::mutex mutex;
+    static std::map<Key, std::shared_ptr<const RatioTable>> tables;
+    const Key key{static_cast<int>(w.kind), w.kind == WindowKind::Kaiser ? w.kaiserBeta : 0.0, n, scale};
+    {
+        std::lock_guard lock(mutex);
+        if (auto it = tables.find(key); it != tables.end()) return it->second;
+    }
+    auto table = std::make_shared<const RatioTable>(w, n, scale); // built outside the lock
+    std::lock_guard lock(mutex);
+    if (tables.size() >= 64) tables.clear(); // bounded: a route uses a handful of spectrum shapes
+    return tables.emplace(key, table).first->second;
+}
+
+} // namespace
+
 Peak interpolatePeak(const Spectrum& s, std::size_t k) {
     Peak p;
     p.line = k;
@@ -116,20 +190,9 @@ Peak interpolatePeak(const Spectrum& s, std::size_t k) {
     const double r = std::min(1.0, std::max(left, right) / ak);
     // Offsets in lines of the padded transform map to window lines through N / Nfft.
     const double scale = static_cast<double>(s.segmentLength) / static_cast<double>(std::max<std::size_t>(1, s.transformLength));
-    const auto kernel = [&](double d) { return windowKernel(s.window, s.segmentLength, d * scale); };
-    const auto ratio = [&](double d) { return kernel(1.0 - d) / kernel(d); };
-    double lo = 0.0, hi = 0.5;
-    if (r <= ratio(0.0)) {
-        hi = 0.0;
-    } else {
-        for (int it = 0; it < 40; ++it) {
-            const double mid = 0.5 * (lo + hi);
-            (ratio(mid) < r ? lo : hi) = mid;
-        }
-    }
-    const double d = 0.5 * (lo + hi);
-    const double gain = kernel(d);
-    const double corrected = ak / gain;
+    const auto table = ratioTable(s.window, s.segmentLength, scale);
+    const double d = table->solve(r);
+    const double corrected = ak / table->kernel(d);
     p.frequencyHz = s.frequencyHz(k) + side * d * s.resolutionHz;
     p.amplitude = s.scale == SpectrumScale::Psd ? corrected * corrected : corrected;
     return p;
