@@ -1,5 +1,6 @@
 #include "app/common/Walkdown.h"
 
+#include "app/common/InOrder.h"
 #include "app/common/MotorAnalysis.h"
 #include "core/dsp/Quality.h"
 #include "core/io/FileBytes.h"
@@ -62,17 +63,13 @@ io::RecordingReadOptions readOptions(const Planned& p) {
 double minimumRate(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 500.0 : 2560.0; }
 double minimumSeconds(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 2.0 : 1.0; }
 
-// Reads and checks one planned recording; returns the problem, or nothing when it is good.
-std::optional<ImportProblem> check(Planned& p, std::map<fs::path, std::vector<std::byte>>& cache) {
+// Checks one planned recording in its file's bytes (or the error reading them); returns the
+// problem, or nothing when it is good.
+std::optional<ImportProblem> check(Planned& p, const Result<std::vector<std::byte>, io::ReadError>& bytes) {
     const auto bad = [&](const char* kind, std::string reason) { return ImportProblem{p.match.file, kind, std::move(reason)}; };
-    auto it = cache.find(p.path);
-    if (it == cache.end()) {
-        auto bytes = io::readFileBytes(p.path);
-        if (!bytes) return bad("unreadable", bytes.error().message());
-        it = cache.emplace(p.path, std::move(bytes).value()).first;
-    }
-    p.hash = util::sha256Hex(it->second);
-    auto rec = io::parseRecordingBytes(it->second, p.path.string(), readOptions(p));
+    if (!bytes) return bad("unreadable", bytes.error().message());
+    p.hash = util::sha256Hex(bytes.value());
+    auto rec = io::parseRecordingBytes(bytes.value(), p.path.string(), readOptions(p));
     if (!rec) return bad("unreadable", rec.error().message());
     const auto& r = rec.value().recording;
     p.format = rec.value().format;
@@ -122,59 +119,58 @@ bool report(const ProgressCallback& cb, std::size_t done, std::size_t total, con
     return !cb || cb({done, total, stage});
 }
 
-// Analyses the motors of one round in parallel (reading their files in the workers) and writes
-// the products from this thread, in fleet order.
-template <class Loader>
-std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, const fleet::Fleet& fleet,
-                          const std::vector<std::string>& motorTags, Loader&& load, const ProgressCallback& progress, unsigned threads,
-                          std::size_t& findingsOut, std::vector<std::string>& notes) {
-    if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
-    using Job = std::future<std::pair<std::vector<PointRecording>, std::optional<MotorAnalysis>>>;
-    const auto launch = [&](std::size_t i) {
-        const auto* motor = fleet.motor(motorTags[i]);
-        return std::async(std::launch::async, [motor, &load]() {
-            std::vector<PointRecording> recs = load(*motor);
-            std::optional<MotorAnalysis> analysis;
-            try {
-                analysis = analyseMotor(*motor, recs);
-            } catch (const std::invalid_argument&) {
-                // Nothing usable: reported below.
-            }
-            for (auto& r : recs) r.samples = {}; // the products are all that is kept
-            return std::make_pair(std::move(recs), std::move(analysis));
-        });
+// What a worker loads for one motor: its recordings and, for a new import, the bytes of each
+// recording's file (shared by the channels of one file), stored by the writer thread.
+struct LoadedMotor {
+    std::vector<PointRecording> recordings;
+    std::vector<std::shared_ptr<const std::vector<std::byte>>> files;
+};
+
+// Analyses the motors of one round in parallel (loading their files in the workers) and stores
+// the results from this thread, in fleet order: first beforeStore(tag, loaded) (the import
+// stores the raw files and recording rows there and sets the recording ids), then the products.
+template <class Loader, class BeforeStore>
+std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, const fleet::Fleet& fleet, const std::vector<std::string>& motorTags,
+                          Loader&& load, BeforeStore&& beforeStore, const ProgressCallback& progress, unsigned threads, std::size_t& findingsOut,
+                          std::vector<std::string>& notes) {
+    struct Done {
+        LoadedMotor loaded;
+        std::optional<MotorAnalysis> analysis;
     };
-    // A sliding window of `threads` motors in flight: the next motor starts as soon as one is
-    // collected, so the workers keep analysing while this thread (SQLite's one writer) stores
-    // the results, in route order.
-    std::deque<Job> inFlight;
-    std::size_t next = 0;
-    for (; next < std::min<std::size_t>(threads, motorTags.size()); ++next) inFlight.push_back(launch(next));
+    const auto work = [&](std::size_t i) {
+        Done d;
+        d.loaded = load(*fleet.motor(motorTags[i]));
+        try {
+            d.analysis = analyseMotor(*fleet.motor(motorTags[i]), d.loaded.recordings);
+        } catch (const std::invalid_argument&) {
+            // Nothing usable: reported below.
+        }
+        for (auto& r : d.loaded.recordings) r.samples = {}; // the products are all that is kept
+        return d;
+    };
     std::size_t analysed = 0;
-    for (std::size_t i = 0; i < motorTags.size(); ++i) {
-        auto [recs, analysis] = inFlight.front().get();
-        inFlight.pop_front();
-        if (next < motorTags.size()) inFlight.push_back(launch(next++));
-        if (analysis) {
-            storeAnalysis(store, roundId, *analysis, recs);
-            findingsOut += analysis->result.findings.size();
+    // One more motor in flight than workers: they keep analysing while this thread (SQLite's one
+    // writer) stores.
+    inOrder(motorTags.size(), workerThreads(threads), workerThreads(threads) + 1, work, [&](std::size_t i, Done d) {
+        beforeStore(motorTags[i], d.loaded);
+        if (d.analysis) {
+            storeAnalysis(store, roundId, *d.analysis, d.loaded.recordings);
+            findingsOut += d.analysis->result.findings.size();
             ++analysed;
         } else {
             notes.push_back(motorTags[i] + ": no usable recording, not analysed");
         }
         if (!report(progress, i + 1, motorTags.size(), "analysing " + motorTags[i])) throw Cancelled{};
-    }
+    });
     return analysed;
 }
 
-PointRecording loadPoint(const Planned& p) {
+PointRecording loadPoint(const Planned& p, std::span<const std::byte> bytes) {
     PointRecording r;
     r.pointName = p.point->name;
     r.speedRpm = p.speedRpm;
     r.usable = p.quality.empty();
-    auto bytes = io::readFileBytes(p.path);
-    if (!bytes) return r;
-    auto rec = io::parseRecordingBytes(bytes.value(), p.path.string(), readOptions(p));
+    auto rec = io::parseRecordingBytes(bytes, p.path.string(), readOptions(p));
     if (!rec) return r;
     auto& ch = rec.value().recording.channels[static_cast<std::size_t>(p.match.channel - 1)];
     r.sampleRateHz = rec.value().recording.sampleRateHz;
@@ -275,22 +271,41 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         }
         std::sort(rep.unmatched.begin(), rep.unmatched.end());
 
-        // Check every file (read and parse it whole); keep only the good ones.
+        // Check every file (read, hash and parse it whole, in parallel, one file per task); keep
+        // only the good recordings, in plan order.
         std::vector<Planned> good;
         {
-            std::map<fs::path, std::vector<std::byte>> cache;
+            std::vector<std::vector<std::size_t>> byFile; // plan indices sharing one file
+            std::map<fs::path, std::size_t> fileIndex;
             for (std::size_t i = 0; i < plan.size(); ++i) {
-                if (!report(options.progress, i, plan.size(), "checking " + plan[i].match.file))
-                    return fail(ImportError{Code::Cancelled, "import cancelled; nothing was stored", rep});
-                if (auto problem = check(plan[i], cache)) {
-                    rep.bad.push_back(*problem);
-                    continue;
+                const auto [it, added] = fileIndex.emplace(plan[i].path, byFile.size());
+                if (added) byFile.emplace_back();
+                byFile[it->second].push_back(i);
+            }
+            const auto checkFile = [&](std::size_t f) {
+                const auto bytes = io::readFileBytes(plan[byFile[f].front()].path);
+                std::vector<std::optional<ImportProblem>> problems;
+                for (std::size_t i : byFile[f]) problems.push_back(check(plan[i], bytes));
+                return problems;
+            };
+            std::vector<bool> isGood(plan.size(), false);
+            std::size_t checked = 0;
+            inOrder(byFile.size(), workerThreads(options.threads), 2 * workerThreads(options.threads), checkFile, [&](std::size_t f, std::vector<std::optional<ImportProblem>> problems) {
+                for (std::size_t k = 0; k < byFile[f].size(); ++k) {
+                    Planned& p = plan[byFile[f][k]];
+                    if (!report(options.progress, checked++, plan.size(), "checking " + p.match.file)) throw Cancelled{};
+                    if (problems[k]) {
+                        rep.bad.push_back(*problems[k]);
+                        continue;
+                    }
+                    for (const auto& q : p.quality) rep.flagged.push_back({p.match.file, q.substr(0, q.find(':')), q});
+                    isGood[byFile[f][k]] = true;
                 }
-                for (const auto& q : plan[i].quality)
-                    rep.flagged.push_back({plan[i].match.file, q.substr(0, q.find(':')), q});
+            });
+            for (std::size_t i = 0; i < plan.size(); ++i) {
+                if (!isGood[i]) continue;
                 rep.matched.push_back(plan[i].match);
                 good.push_back(std::move(plan[i]));
-                if (cache.size() > 8) cache.clear(); // bounded memory: files of one motor sit together
             }
         }
         if (!rep.bad.empty() && !options.skipBad) {
@@ -333,29 +348,6 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         round.sourceFolder = folder.string();
         round.importedAt = nowIso();
         const std::int64_t roundId = store.insertRound(round);
-        std::map<std::pair<std::string, std::string>, std::int64_t> recordingIds;
-        for (auto& p : good) {
-            auto bytes = io::readFileBytes(p.path);
-            if (!bytes) throw storage::StorageException{{storage::StorageError::Code::Io, bytes.error().message(), 0}};
-            store.storeSourceFile(p.hash, bytes.value());
-            storage::RecordingRow row;
-            row.roundId = roundId;
-            row.motorTag = p.motor->motor.tag;
-            row.pointName = p.point->name;
-            row.recordedAt = p.time;
-            row.sampleRateHz = p.sampleRateHz;
-            row.sampleCount = static_cast<std::int64_t>(p.samples);
-            row.fileName = p.match.file;
-            row.fileHash = p.hash;
-            row.fileFormat = p.format;
-            row.channelIndex = p.match.channel - 1;
-            row.unit = std::string(unitSymbol(p.unit));
-            row.sensitivity = p.sensitivity;
-            for (const auto& q : p.quality) row.quality += (row.quality.empty() ? "" : ",") + q.substr(0, q.find(':'));
-            row.speedRpm = p.speedRpm;
-            row.loadPercent = p.loadPercent;
-            recordingIds[{row.motorTag, row.pointName}] = store.insertRecording(row);
-        }
         std::vector<std::string> motorTags;
         for (const auto& m : fleet.motors)
             for (const auto& p : good)
@@ -363,17 +355,57 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
                     motorTags.push_back(m.motor.tag);
                     break;
                 }
+        // Workers read each file once more (the check let go of it to bound memory), make sure it
+        // is still the file that was checked, and analyse; the writer stores the bytes.
         const auto loader = [&](const fleet::MotorDefinition& m) {
-            std::vector<PointRecording> recs;
-            for (const auto& p : good)
-                if (p.motor == &m) {
-                    PointRecording r = loadPoint(p);
-                    r.recordingId = recordingIds.at({m.motor.tag, p.point->name});
-                    recs.push_back(std::move(r));
+            LoadedMotor out;
+            std::map<fs::path, std::shared_ptr<const std::vector<std::byte>>> files;
+            for (const auto& p : good) {
+                if (p.motor != &m) continue;
+                auto& file = files[p.path];
+                if (!file) {
+                    auto bytes = io::readFileBytes(p.path);
+                    if (bytes && util::sha256Hex(bytes.value()) == p.hash) file = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
                 }
-            return recs;
+                out.recordings.push_back(file ? loadPoint(p, *file) : PointRecording{});
+                out.files.push_back(file);
+            }
+            return out;
         };
-        rep.motorsAnalysed = analyseMotors(store, roundId, fleet, motorTags, loader, options.progress, options.threads, rep.findings, rep.notes);
+        std::set<std::string> storedHashes;
+        const auto storeRecordings = [&](const std::string& tag, LoadedMotor& loaded) {
+            std::size_t k = 0;
+            for (const auto& p : good) {
+                if (p.motor->motor.tag != tag) continue;
+                const auto& file = loaded.files.at(k);
+                if (!file)
+                    throw storage::StorageException{{storage::StorageError::Code::Io, p.path.string() + ": the file changed or vanished during the import", 0}};
+                if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *file);
+                storage::RecordingRow row;
+                row.roundId = roundId;
+                row.motorTag = tag;
+                row.pointName = p.point->name;
+                row.recordedAt = p.time;
+                row.sampleRateHz = p.sampleRateHz;
+                row.sampleCount = static_cast<std::int64_t>(p.samples);
+                row.fileName = p.match.file;
+                row.fileHash = p.hash;
+                row.fileFormat = p.format;
+                row.channelIndex = p.match.channel - 1;
+                row.unit = std::string(unitSymbol(p.unit));
+                row.sensitivity = p.sensitivity;
+                for (const auto& q : p.quality) {
+                    if (!row.quality.empty()) row.quality += ',';
+                    row.quality.append(q, 0, q.find(':'));
+                }
+                row.speedRpm = p.speedRpm;
+                row.loadPercent = p.loadPercent;
+                loaded.recordings.at(k).recordingId = store.insertRecording(row);
+                loaded.files.at(k).reset(); // stored: let the bytes go
+                ++k;
+            }
+        };
+        rep.motorsAnalysed = analyseMotors(store, roundId, fleet, motorTags, loader, storeRecordings, options.progress, options.threads, rep.findings, rep.notes);
         tx.commit();
         rep.roundId = roundId;
         return rep;
@@ -392,8 +424,6 @@ Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, c
             const auto recordings = store.recordings(round.id);
             storage::Transaction tx(store.database());
             store.deleteAnalysis(round.id);
-            // Raw files are read here (one connection, one thread); parsing and analysis run in the workers.
-            std::map<std::string, std::vector<std::byte>> files;
             std::vector<std::string> motorTags;
             for (const auto& m : fleet.motors)
                 for (const auto& r : recordings)
@@ -401,12 +431,16 @@ Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, c
                         motorTags.push_back(m.motor.tag);
                         break;
                     }
-            for (const auto& r : recordings)
-                if (!files.count(r.fileHash)) files[r.fileHash] = store.sourceFile(r.fileHash);
-            const auto loader = [&](const fleet::MotorDefinition& m) {
-                std::vector<PointRecording> recs;
+            // Each worker reads one motor's raw files through its own read-only connection (the
+            // writer's stays on this thread): memory holds the motors in flight, not the round.
+            const auto loader = [&, path = store.database().path()](const fleet::MotorDefinition& m) {
+                LoadedMotor loaded;
+                const auto reader = storage::FleetStore::openReadOnly(path);
+                std::map<std::string, std::vector<std::byte>> files;
+                auto& recs = loaded.recordings;
                 for (const auto& r : recordings) {
                     if (r.motorTag != m.motor.tag) continue;
+                    if (!files.count(r.fileHash)) files[r.fileHash] = reader->sourceFile(r.fileHash);
                     PointRecording pr;
                     pr.recordingId = r.id;
                     pr.pointName = r.pointName;
@@ -429,10 +463,11 @@ Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, c
                     }
                     recs.push_back(std::move(pr));
                 }
-                return recs;
+                return loaded;
             };
             std::vector<std::string> notes;
-            out.motors += analyseMotors(store, round.id, fleet, motorTags, loader, progress, threads, out.findings, notes);
+            const auto nothingBefore = [](const std::string&, LoadedMotor&) {};
+            out.motors += analyseMotors(store, round.id, fleet, motorTags, loader, nothingBefore, progress, threads, out.findings, notes);
             tx.commit();
             ++out.rounds;
         }

@@ -48,6 +48,32 @@ void appendManifest(const fs::path& folder, const std::string& row) {
     std::ofstream(folder / "manifest.csv", std::ios::app) << row << "\n";
 }
 
+// A file changed after it was checked (a collector still syncing, a user editing the folder):
+// the bytes to be stored no longer match the hash they were checked under, so the import stops
+// and stores nothing rather than keep a raw file that is not the one analysed and addressed.
+TEST(WalkdownImport, AFileThatChangesDuringTheImportStopsItAndNothingIsStored) {
+    auto s = storeWithFleet("changing");
+    const auto folder = test::freshFolder("changing");
+    test::writeWalkdown(folder);
+    bool changed = false;
+    ImportOptions o;
+    o.progress = [&](const ImportProgress& p) {
+        if (!changed && p.stage.rfind("analysing", 0) == 0) return true;
+        if (!changed && p.done + 1 == p.total && p.stage.rfind("checking", 0) == 0) {
+            std::ofstream(folder / "P-2" / "DE-V.wav", std::ios::binary | std::ios::app) << "extra bytes";
+            changed = true;
+        }
+        return true;
+    };
+    const auto r = importWalkdown(*s, folder, o);
+    ASSERT_TRUE(changed);
+    ASSERT_FALSE(r.ok());
+    EXPECT_EQ(r.error().code, Code::Storage);
+    EXPECT_NE(r.error().message.find("DE-V.wav: the file changed or vanished during the import"), std::string::npos) << r.error().message;
+    EXPECT_NE(r.error().message.find("nothing was stored"), std::string::npos) << r.error().message;
+    expectNothingStored(*s);
+}
+
 TEST(WalkdownImport, ImportsAnalysesAndStoresOneRound) {
     auto s = storeWithFleet("happy");
     const auto folder = test::freshFolder("happy");
