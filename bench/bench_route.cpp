@@ -621,7 +621,7 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     for (const auto* r : {&f.t1, &f.t2})
         std::cout << "  import, threads = " << (r == &f.t1 ? 1 : 2) << ": checking files (read, parse, hash, quality) until " << std::setprecision(2)
                   << r->values.at("checked_s") << " s; first motor analysed and stored at " << r->values.at("first_motor_s")
-                  << " s (raw files stored before it); analysis + products of all motors "
+                  << " s (with its raw files); analysis, raw files and products of all motors "
                   << r->values.at("import_s") - r->values.at("first_motor_s") << " s after it\n";
     std::cout << "  import speed-up 1 -> 2 threads: " << std::setprecision(2) << t1 / f.t2.values.at("import_s") << "x; motors analysed "
               << static_cast<long>(f.t1.values.at("motors_analysed")) << ", findings " << static_cast<long>(f.t1.values.at("findings"))
