@@ -341,6 +341,11 @@ std::int64_t FleetStore::insertRound(const RoundRow& r) {
     return m_db->lastInsertId();
 }
 
+void FleetStore::setRoundManifestHash(std::int64_t roundId, const std::string& hash) {
+    auto s = m_db->prepare("UPDATE rounds SET manifest_hash = ?1 WHERE id = ?2");
+    s.bind(1, hash).bind(2, roundId).run();
+}
+
 void FleetStore::deleteRound(std::int64_t id) {
     auto s = m_db->prepare("DELETE FROM rounds WHERE id = ?1");
     s.bind(1, id).run();

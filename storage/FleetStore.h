@@ -141,6 +141,7 @@ public:
     // Rounds.
     std::optional<RoundRow> roundByManifestHash(const std::string& hash);
     std::int64_t insertRound(const RoundRow& round);
+    void setRoundManifestHash(std::int64_t roundId, const std::string& hash); // the walkdown's identity, known once imported
     void deleteRound(std::int64_t roundId);
     std::vector<RoundRow> rounds(); // oldest first
     std::optional<RoundRow> round(std::int64_t id);

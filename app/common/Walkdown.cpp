@@ -10,6 +10,7 @@
 #include "core/util/Text.h"
 
 #include <algorithm>
+#include <atomic>
 #ifdef __GLIBC__
 #include <malloc.h>
 #endif
@@ -66,13 +67,12 @@ io::RecordingReadOptions readOptions(const Planned& p) {
 double minimumRate(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 500.0 : 2560.0; }
 double minimumSeconds(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 2.0 : 1.0; }
 
-// Checks one planned recording in its file's bytes (or the error reading them); returns the
-// problem, or nothing when it is good.
-std::optional<ImportProblem> check(Planned& p, const Result<std::vector<std::byte>, io::ReadError>& bytes) {
+// Checks one planned recording in its file's bytes; returns the problem, or nothing when it is
+// good - and then, when `keep` is given, the recording in it.
+std::optional<ImportProblem> check(Planned& p, std::span<const std::byte> bytes, PointRecording* keep = nullptr) {
     const auto bad = [&](const char* kind, std::string reason) { return ImportProblem{p.match.file, kind, std::move(reason)}; };
-    if (!bytes) return bad("unreadable", bytes.error().message());
-    p.hash = util::sha256Hex(bytes.value());
-    auto rec = io::parseRecordingBytes(bytes.value(), p.path.string(), readOptions(p));
+    p.hash = util::sha256Hex(bytes);
+    auto rec = io::parseRecordingBytes(bytes, p.path.string(), readOptions(p));
     if (!rec) return bad("unreadable", rec.error().message());
     const auto& r = rec.value().recording;
     p.format = rec.value().format;
@@ -95,6 +95,14 @@ std::optional<ImportProblem> check(Planned& p, const Result<std::vector<std::byt
     q.fullScale = ch.fullScale;
     q.sampleRateHz = r.sampleRateHz;
     for (const auto& issue : dsp::assessQuality(ch.samples, q)) p.quality.push_back(std::string(dsp::qualityFlagName(issue.flag)) + ": " + issue.detail);
+    if (keep) {
+        keep->pointName = p.point->name;
+        keep->speedRpm = p.speedRpm;
+        keep->usable = p.quality.empty();
+        keep->sampleRateHz = r.sampleRateHz;
+        keep->quantity = ch.quantity;
+        keep->samples = std::move(rec.value().recording.channels[static_cast<std::size_t>(p.match.channel - 1)].samples);
+    }
     return std::nullopt;
 }
 
@@ -176,20 +184,6 @@ std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, cons
         if (i % 16 == 15) releaseFreedMemory(); // not after every motor: returned pages fault back in
     });
     return analysed;
-}
-
-PointRecording loadPoint(const Planned& p, std::span<const std::byte> bytes) {
-    PointRecording r;
-    r.pointName = p.point->name;
-    r.speedRpm = p.speedRpm;
-    r.usable = p.quality.empty();
-    auto rec = io::parseRecordingBytes(bytes, p.path.string(), readOptions(p));
-    if (!rec) return r;
-    auto& ch = rec.value().recording.channels[static_cast<std::size_t>(p.match.channel - 1)];
-    r.sampleRateHz = rec.value().recording.sampleRateHz;
-    r.quantity = ch.quantity;
-    r.samples = std::move(ch.samples);
-    return r;
 }
 
 } // namespace
@@ -284,119 +278,94 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         }
         std::sort(rep.unmatched.begin(), rep.unmatched.end());
 
-        // Check every file (read, hash and parse it whole, in parallel, one file per task); keep
-        // only the good recordings, in plan order.
-        std::vector<Planned> good;
-        {
-            std::vector<std::vector<std::size_t>> byFile; // plan indices sharing one file
-            std::map<fs::path, std::size_t> fileIndex;
-            for (std::size_t i = 0; i < plan.size(); ++i) {
-                const auto [it, added] = fileIndex.emplace(plan[i].path, byFile.size());
-                if (added) byFile.emplace_back();
-                byFile[it->second].push_back(i);
-            }
-            const auto checkFile = [&](std::size_t f) {
-                const auto bytes = io::readFileBytes(plan[byFile[f].front()].path);
-                std::vector<std::optional<ImportProblem>> problems;
-                for (std::size_t i : byFile[f]) problems.push_back(check(plan[i], bytes));
-                return problems;
-            };
-            std::vector<bool> isGood(plan.size(), false);
-            std::size_t checked = 0;
-            inOrder(byFile.size(), workerThreads(options.threads), 2 * workerThreads(options.threads), checkFile, [&](std::size_t f, std::vector<std::optional<ImportProblem>> problems) {
-                for (std::size_t k = 0; k < byFile[f].size(); ++k) {
-                    Planned& p = plan[byFile[f][k]];
-                    if (!report(options.progress, checked++, plan.size(), "checking " + p.match.file)) throw Cancelled{};
-                    if (problems[k]) {
-                        rep.bad.push_back(*problems[k]);
-                        continue;
-                    }
-                    for (const auto& q : p.quality) rep.flagged.push_back({p.match.file, q.substr(0, q.find(':')), q});
-                    isGood[byFile[f][k]] = true;
-                }
-            });
-            for (std::size_t i = 0; i < plan.size(); ++i) {
-                if (!isGood[i]) continue;
-                rep.matched.push_back(plan[i].match);
-                good.push_back(std::move(plan[i]));
-            }
+        // One pass, one task per motor on the worker threads: read each of its files once, hash
+        // it, check every recording in it (rate, length, quantity, quality flags) and, unless this
+        // is a dry run or the import is already lost to a bad file, analyse the motor. This thread
+        // (SQLite's one writer) collects the motors in fleet order: it reports the problems and
+        // stores the raw files, recordings and products of the good ones, all in one transaction.
+        std::vector<const fleet::MotorDefinition*> motors;       // fleet order
+        std::vector<std::vector<std::size_t>> entriesOf;          // plan indices per motor, plan order
+        for (const auto& m : fleet.motors) {
+            std::vector<std::size_t> mine;
+            for (std::size_t i = 0; i < plan.size(); ++i)
+                if (plan[i].motor == &m) mine.push_back(i);
+            if (mine.empty()) continue;
+            motors.push_back(&m);
+            entriesOf.push_back(std::move(mine));
         }
-        if (!rep.bad.empty() && !options.skipBad) {
-            std::string msg = folder.string() + ": " + std::to_string(rep.bad.size()) + " bad file(s), nothing imported (use --skip-bad to import the rest):";
-            for (const auto& b : rep.bad) msg += "\n  " + b.file + ": " + b.kind + " - " + b.reason;
-            return fail(ImportError{Code::BadFiles, msg, rep});
-        }
-        if (good.empty()) return fail(ImportError{Code::BadFiles, folder.string() + ": no recording could be imported", rep});
-
-        // The walkdown's identity: the manifest and every imported file.
-        util::Sha256 identity;
-        identity.update(manifestText);
-        for (const auto& p : good) identity.update(p.hash);
-        const std::string roundHash = identity.finishHex();
-        const auto existing = store.roundByManifestHash(roundHash);
-        if (existing && !options.replace)
-            return fail(ImportError{Code::AlreadyImported, folder.string() + ": this walkdown was imported already (round of " + existing->startedAt +
-                                                               "); use --replace to import it again in its place", rep});
-        if (options.dryRun) return rep;
-
-        storage::Transaction tx(store.database());
-        if (existing) {
-            store.deleteRound(existing->id);
-            rep.replaced = true;
-        }
-        storage::RoundRow round;
-        round.route = man.route && !man.route->empty() ? man.route : std::nullopt;
-        if (round.route) {
-            bool known = false;
-            for (const auto& r : fleet.routes) known |= r.name == *round.route;
-            if (!known) {
-                rep.notes.push_back("route '" + *round.route + "' is not in the fleet; the round is stored without a route");
-                round.route.reset();
-            }
-        }
-        round.startedAt = rep.roundStart;
-        round.technician = man.technician;
-        round.notes = man.notes;
-        round.manifestHash = roundHash;
-        round.sourceFolder = folder.string();
-        round.importedAt = nowIso();
-        const std::int64_t roundId = store.insertRound(round);
-        std::vector<std::string> motorTags;
-        for (const auto& m : fleet.motors)
-            for (const auto& p : good)
-                if (p.motor == &m) {
-                    motorTags.push_back(m.motor.tag);
-                    break;
-                }
-        // Workers read each file once more (the check let go of it to bound memory), make sure it
-        // is still the file that was checked, and analyse; the writer stores the bytes.
-        const auto loader = [&](const fleet::MotorDefinition& m) {
-            LoadedMotor out;
+        struct MotorWork {
+            std::vector<std::optional<ImportProblem>> problems; // per entry of the motor
+            LoadedMotor loaded;                                 // the good entries' recordings and file bytes
+            std::vector<std::size_t> good;                      // their plan indices
+            std::optional<MotorAnalysis> analysis;
+        };
+        std::atomic<bool> lost{false}; // a bad file and no --skip-bad: check the rest, analyse nothing more
+        const bool analyse = !options.dryRun;
+        const auto work = [&](std::size_t m) {
+            MotorWork w;
             std::map<fs::path, std::shared_ptr<const std::vector<std::byte>>> files;
-            for (const auto& p : good) {
-                if (p.motor != &m) continue;
+            for (std::size_t i : entriesOf[m]) {
+                Planned& p = plan[i];
                 auto& file = files[p.path];
+                std::optional<ImportProblem> problem;
                 if (!file) {
                     auto bytes = io::readFileBytes(p.path);
-                    if (bytes && util::sha256Hex(bytes.value()) == p.hash) file = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
+                    if (bytes) file = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
+                    else problem = ImportProblem{p.match.file, "unreadable", bytes.error().message()};
                 }
-                out.recordings.push_back(file ? loadPoint(p, *file) : PointRecording{});
-                out.files.push_back(file);
+                PointRecording recording;
+                if (!problem) problem = check(p, *file, analyse ? &recording : nullptr);
+                if (!problem) {
+                    w.good.push_back(i);
+                    w.loaded.recordings.push_back(std::move(recording));
+                    w.loaded.files.push_back(file);
+                } else if (!options.skipBad) {
+                    lost = true;
+                }
+                w.problems.push_back(std::move(problem));
             }
-            return out;
+            if (analyse && !lost && !w.good.empty()) {
+                try {
+                    w.analysis = analyseMotor(*motors[m], w.loaded.recordings);
+                } catch (const std::invalid_argument&) {
+                    // Nothing usable: reported when stored.
+                }
+            }
+            for (auto& r : w.loaded.recordings) r.samples = {}; // the products are all that is kept
+            if (!analyse) w.loaded.files.clear();
+            return w;
+        };
+
+        std::optional<storage::Transaction> tx;
+        std::int64_t roundId = 0;
+        const auto beginRound = [&] {
+            tx.emplace(store.database());
+            storage::RoundRow round;
+            round.route = man.route && !man.route->empty() ? man.route : std::nullopt;
+            if (round.route) {
+                bool known = false;
+                for (const auto& r : fleet.routes) known |= r.name == *round.route;
+                if (!known) {
+                    rep.notes.push_back("route '" + *round.route + "' is not in the fleet; the round is stored without a route");
+                    round.route.reset();
+                }
+            }
+            round.startedAt = rep.roundStart;
+            round.technician = man.technician;
+            round.notes = man.notes;
+            round.manifestHash = "importing " + rep.roundStart + " " + folder.string(); // the walkdown's identity is set at the end
+            round.sourceFolder = folder.string();
+            round.importedAt = nowIso();
+            roundId = store.insertRound(round);
         };
         std::set<std::string> storedHashes;
-        const auto storeRecordings = [&](const std::string& tag, LoadedMotor& loaded) {
-            std::size_t k = 0;
-            for (const auto& p : good) {
-                if (p.motor->motor.tag != tag) continue;
-                const auto& file = loaded.files.at(k);
-                if (!file)
-                    throw storage::StorageException{{storage::StorageError::Code::Io, p.path.string() + ": the file changed or vanished during the import", 0}};
-                if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *file);
+        const auto storeMotor = [&](std::size_t m, MotorWork& w) {
+            for (std::size_t k = 0; k < w.good.size(); ++k) {
+                const Planned& p = plan[w.good[k]];
+                if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *w.loaded.files[k]);
                 storage::RecordingRow row;
                 row.roundId = roundId;
-                row.motorTag = tag;
+                row.motorTag = p.motor->motor.tag;
                 row.pointName = p.point->name;
                 row.recordedAt = p.time;
                 row.sampleRateHz = p.sampleRateHz;
@@ -413,13 +382,70 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
                 }
                 row.speedRpm = p.speedRpm;
                 row.loadPercent = p.loadPercent;
-                loaded.recordings.at(k).recordingId = store.insertRecording(row);
-                loaded.files.at(k).reset(); // stored: let the bytes go
-                ++k;
+                w.loaded.recordings[k].recordingId = store.insertRecording(row);
+                w.loaded.files[k].reset(); // stored: let the bytes go
+            }
+            if (w.analysis) {
+                storeAnalysis(store, roundId, *w.analysis, w.loaded.recordings);
+                rep.findings += w.analysis->result.findings.size();
+                ++rep.motorsAnalysed;
+            } else if (!w.good.empty() && !lost) {
+                rep.notes.push_back(motors[m]->motor.tag + ": no usable recording, not analysed");
             }
         };
-        rep.motorsAnalysed = analyseMotors(store, roundId, fleet, motorTags, loader, storeRecordings, options.progress, options.threads, rep.findings, rep.notes);
-        tx.commit();
+
+        std::vector<bool> isGood(plan.size(), false);
+        std::size_t done = 0;
+        inOrder(motors.size(), workerThreads(options.threads), workerThreads(options.threads) + 1, work, [&](std::size_t m, MotorWork w) {
+            for (std::size_t k = 0; k < entriesOf[m].size(); ++k) {
+                Planned& p = plan[entriesOf[m][k]];
+                if (!report(options.progress, done++, plan.size(), "checking " + p.match.file)) throw Cancelled{};
+                if (w.problems[k]) {
+                    rep.bad.push_back(*w.problems[k]);
+                    continue;
+                }
+                for (const auto& q : p.quality) rep.flagged.push_back({p.match.file, q.substr(0, q.find(':')), q});
+                isGood[entriesOf[m][k]] = true;
+            }
+            if (analyse && (rep.bad.empty() || options.skipBad)) {
+                if (!tx) beginRound();
+                storeMotor(m, w);
+                if (!report(options.progress, done, plan.size(), "analysing " + motors[m]->motor.tag)) throw Cancelled{};
+            }
+            if (m % 16 == 15) releaseFreedMemory(); // not after every motor: returned pages fault back in
+        });
+        std::vector<const Planned*> good;
+        for (std::size_t i = 0; i < plan.size(); ++i)
+            if (isGood[i]) {
+                rep.matched.push_back(plan[i].match);
+                good.push_back(&plan[i]);
+            }
+        if (!rep.bad.empty() && !options.skipBad) {
+            std::string msg = folder.string() + ": " + std::to_string(rep.bad.size()) + " bad file(s), nothing imported (use --skip-bad to import the rest):";
+            for (const auto& b : rep.bad) msg += "\n  " + b.file + ": " + b.kind + " - " + b.reason;
+            return fail(ImportError{Code::BadFiles, msg, rep});
+        }
+        if (good.empty()) return fail(ImportError{Code::BadFiles, folder.string() + ": no recording could be imported", rep});
+
+        // The walkdown's identity: the manifest and every imported file, in manifest order.
+        util::Sha256 identity;
+        identity.update(manifestText);
+        for (const auto* p : good) identity.update(p->hash);
+        const std::string roundHash = identity.finishHex();
+        const auto existing = store.roundByManifestHash(roundHash);
+        if (existing && !options.replace)
+            return fail(ImportError{Code::AlreadyImported, folder.string() + ": this walkdown was imported already (round of " + existing->startedAt +
+                                                               "); use --replace to import it again in its place", rep});
+        if (options.dryRun) {
+            rep.motorsAnalysed = 0;
+            return rep;
+        }
+        if (existing) {
+            store.deleteRound(existing->id);
+            rep.replaced = true;
+        }
+        store.setRoundManifestHash(roundId, roundHash);
+        tx->commit();
         rep.roundId = roundId;
         return rep;
     } catch (const Cancelled&) {
