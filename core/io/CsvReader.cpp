@@ -78,15 +78,9 @@ Result<Recording, ReadError> parseCsv(std::string_view text, const std::string& 
     std::vector<std::vector<double>> data;
     std::vector<std::size_t> rowLines; // file line of each data row, for messages
     std::size_t lineNo = 0, headerLine = 0;
-    std::size_t pos = 0;
-    while (pos < text.size()) {
-        std::size_t end = text.find('\n', pos);
-        if (end == std::string_view::npos) end = text.size();
-        std::string_view line = text.substr(pos, end - pos);
-        pos = end + 1;
-        ++lineNo;
-        if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
-        if (text::trim(line).empty()) continue;
+    text::LineReader lines(text);
+    std::string_view line;
+    while (lines.next(line, lineNo)) {
         if (line.front() == '#') {
             if (!columns.empty()) continue;
             std::string_view body = text::trim(line.substr(1));

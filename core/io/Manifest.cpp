@@ -29,16 +29,11 @@ Result<Manifest, ReadError> parseManifest(std::string_view text, const std::stri
     Manifest m;
     bool haveStart = false;
     std::map<std::string, std::size_t> column; // name -> index
-    std::size_t headerLine = 0, lineNo = 0, pos = 0;
+    std::size_t headerLine = 0, lineNo = 0;
     char delimiter = ',';
-    while (pos < text.size()) {
-        std::size_t end = text.find('\n', pos);
-        if (end == std::string_view::npos) end = text.size();
-        std::string_view line = text.substr(pos, end - pos);
-        pos = end + 1;
-        ++lineNo;
-        if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
-        if (text::trim(line).empty()) continue;
+    text::LineReader lines(text);
+    std::string_view line;
+    while (lines.next(line, lineNo)) {
         if (line.front() == '#') {
             if (headerLine) continue;
             const std::string_view body = text::trim(line.substr(1));

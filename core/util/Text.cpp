@@ -7,6 +7,21 @@
 
 namespace humwise::text {
 
+bool LineReader::next(std::string_view& line, std::size_t& number) {
+    while (m_pos < m_text.size()) {
+        std::size_t end = m_text.find('\n', m_pos);
+        if (end == std::string_view::npos) end = m_text.size();
+        line = m_text.substr(m_pos, end - m_pos);
+        m_pos = end + 1;
+        ++m_number;
+        if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
+        if (trim(line).empty()) continue;
+        number = m_number;
+        return true;
+    }
+    return false;
+}
+
 std::string_view trim(std::string_view s) {
     while (!s.empty() && std::isspace(static_cast<unsigned char>(s.front()))) s.remove_prefix(1);
     while (!s.empty() && std::isspace(static_cast<unsigned char>(s.back()))) s.remove_suffix(1);

@@ -10,6 +10,21 @@
 namespace humwise::text {
 
 std::string_view trim(std::string_view s);
+
+// The non-blank lines of a text, one at a time, with their 1-based numbers in the text; "\n" and
+// "\r\n" both end a line (the '\r' is not part of it).
+class LineReader {
+public:
+    explicit LineReader(std::string_view text) : m_text(text) {}
+    // The next line that is not blank and its number; false at the end of the text.
+    bool next(std::string_view& line, std::size_t& number);
+
+private:
+    std::string_view m_text;
+    std::size_t m_pos = 0;
+    std::size_t m_number = 0;
+};
+
 std::string lower(std::string_view s);
 std::vector<std::string_view> split(std::string_view s, char delimiter);
 
