@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <memory>
 #include <numbers>
 #include <stdexcept>
 
@@ -23,8 +24,16 @@ RecordSpectrum::RecordSpectrum(std::span<const double> x, double fs) : m_n(x.siz
     m_bins.assign(out.begin(), out.end());
 }
 
-BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength,
-                       double taperFraction) {
+namespace {
+
+// The band's analytic signal, inverse-transformed in place in `inverse` (made here, of the
+// length the band needs); returns the band limits actually used (rounded to lines).
+struct BandCut {
+    std::unique_ptr<ComplexFft<double>> inverse;
+    double sampleRateHz = 0, loHz = 0, hiHz = 0;
+};
+
+BandCut cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
     const double df = spectrum.lineSpacingHz();
     const std::size_t last = spectrum.bins().size() - 1;
     if (!(hiHz > loHz) || loHz < 0)
@@ -34,8 +43,9 @@ BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz,
     if (kh <= kl) throw std::invalid_argument("extractBand: the band is narrower than one line or above Nyquist");
     const std::size_t width = kh - kl + 1;
     const std::size_t m = nextFastFftSize(std::max(width, minLength));
-    ComplexFft<double> inverse(m, FftDirection::Backward);
-    auto data = inverse.data();
+    BandCut cut;
+    cut.inverse = std::make_unique<ComplexFft<double>>(m, FftDirection::Backward);
+    auto data = cut.inverse->data();
     std::fill(data.begin(), data.end(), std::complex<double>(0.0, 0.0));
     const auto bins = spectrum.bins();
     const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
@@ -49,13 +59,38 @@ BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz,
         const bool outerLine = k == 0 || (spectrum.length() % 2 == 0 && k == spectrum.length() / 2);
         data[i] = bins[k] * ((outerLine ? 0.5 * scale : scale) * t);
     }
-    inverse.execute();
+    cut.inverse->execute();
+    cut.sampleRateHz = static_cast<double>(m) * df;
+    cut.loHz = static_cast<double>(kl) * df;
+    cut.hiHz = static_cast<double>(kh) * df;
+    return cut;
+}
+
+} // namespace
+
+BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+    const BandCut cut = cutBand(spectrum, loHz, hiHz, minLength, taperFraction);
     BandSignal out;
+    const auto data = cut.inverse->data();
     out.samples.assign(data.begin(), data.end());
-    out.sampleRateHz = static_cast<double>(m) * df;
-    out.loHz = static_cast<double>(kl) * df;
-    out.hiHz = static_cast<double>(kh) * df;
+    out.sampleRateHz = cut.sampleRateHz;
+    out.loHz = cut.loHz;
+    out.hiHz = cut.hiHz;
     return out;
+}
+
+BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+    const BandCut cut = cutBand(spectrum, loHz, hiHz, minLength, taperFraction);
+    double m2 = 0, m4 = 0;
+    for (const auto& z : cut.inverse->data()) {
+        const double p = std::norm(z);
+        m2 += p;
+        m4 += p * p;
+    }
+    const double n = static_cast<double>(cut.inverse->data().size());
+    m2 /= n;
+    m4 /= n;
+    return {m2, m2 > 0 ? m4 / (m2 * m2) - 2.0 : 0.0};
 }
 
 } // namespace humwise::dsp

@@ -45,4 +45,12 @@ struct BandSignal {
 BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength = 0,
                        double taperFraction = 0.1);
 
+// The moments of the band's complex envelope z (as extractBand would give it), computed where the
+// inverse transform leaves it, without copying the signal out: what a kurtogram needs per band.
+struct BandMoments {
+    double meanSquare = 0; // <|z|^2>
+    double kurtosis = 0;   // <|z|^4> / <|z|^2>^2 - 2 : 0 for Gaussian noise, -1 for a steady tone, large for impacts
+};
+BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength = 0, double taperFraction = 0.1);
+
 } // namespace humwise::dsp

@@ -9,24 +9,6 @@
 namespace humwise::dsp {
 namespace {
 
-struct BandMoments {
-    double meanSquare = 0; // <|z|^2>
-    double kurtosis = 0;   // <|z|^4> / <|z|^2>^2 - 2
-};
-
-BandMoments complexEnvelopeMoments(const BandSignal& band) {
-    double m2 = 0, m4 = 0;
-    for (const auto& z : band.samples) {
-        const double p = std::norm(z);
-        m2 += p;
-        m4 += p * p;
-    }
-    const double n = static_cast<double>(band.samples.size());
-    m2 /= n;
-    m4 /= n;
-    return {m2, m2 > 0 ? m4 / (m2 * m2) - 2.0 : 0.0};
-}
-
 // Average power density of the record, unit^2 per Hz, from its one-sided lines.
 double averageDensity(const RecordSpectrum& spectrum) {
     double sum = 0;
@@ -68,8 +50,7 @@ Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& 
                 continue;
             // Twice the band's lines: |z|^2 and |z|^4 then keep their full bandwidth.
             const auto widthLines = static_cast<std::size_t>(std::ceil(width / df));
-            const BandSignal band = extractBand(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
-            const BandMoments moments = complexEnvelopeMoments(band);
+            const BandMoments moments = bandMoments(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
             cell.kurtosis = moments.kurtosis;
             // z is the amplitude envelope (BandSignal.h), so the band's real signal has mean square <|z|^2> / 2.
             const double bandDensity = 0.5 * moments.meanSquare / cell.bandwidthHz();
