@@ -43,8 +43,9 @@ TEST(ScreenshotTour, EveryViewIsPicturedAndNoneIsBlank) {
         spec.roundStart = "2026-0" + std::to_string(month) + "-02T08:00:00Z";
         spec.oneXmmsP1 = 0.6 + month;
         spec.seed = static_cast<std::uint64_t>(month);
-        test::writeWalkdown(dir / ("w" + std::to_string(month)), spec);
-        const auto r = test::runCli({"import", (dir / ("w" + std::to_string(month))).string(), "--db", db.string()});
+        const auto walk = dir / std::filesystem::path("w").concat(std::to_string(month));
+        test::writeWalkdown(walk, spec);
+        const auto r = test::runCli({"import", walk.string(), "--db", db.string()});
         ASSERT_EQ(r.exitCode, 0) << r.err;
     }
     const auto [status, output] = runWorkbench({"--db", db.string(), "--screenshot-tour", (dir / "pictures").string()});

@@ -56,8 +56,9 @@ protected:
             spec.roundStart = "2026-0" + std::to_string(month) + "-02T08:00:00Z";
             spec.oneXmmsP1 = 0.6 + 1.4 * (month - 3);
             spec.seed = static_cast<std::uint64_t>(10 + month);
-            writeWalkdown(dir / ("w" + std::to_string(month)), spec);
-            const auto r = runCli({"import", (dir / ("w" + std::to_string(month))).string(), "--db", db.string()});
+            const auto walk = dir / std::filesystem::path("w").concat(std::to_string(month));
+            writeWalkdown(walk, spec);
+            const auto r = runCli({"import", walk.string(), "--db", db.string()});
             ASSERT_EQ(r.exitCode, 0) << r.err;
         }
     }

@@ -43,7 +43,7 @@ INSTANTIATE_TEST_SUITE_P(
                       Row{"kaiser_3pi", {WindowKind::Kaiser, 3 * pi}, 0.4025, 1.7952, 1.0226, -69.62, 1.7025},
                       Row{"kaiser_3_5pi", {WindowKind::Kaiser, 3.5 * pi}, 0.3735, 1.9284, 0.8900, -81.92, 1.826},
                       Row{"hft95", {WindowKind::FlatTop}, 0.2136, 3.8112, 0.0039, -95.00, 3.7592}),
-    [](const ::testing::TestParamInfo<Row>& info) { return std::string(info.param.name); });
+    [](const ::testing::TestParamInfo<Row>& row) { return std::string(row.param.name); });
 
 // REFERENCE.md 1.7: the symmetric N-point Hann has NENBW 1.5 N/(N-1): 1.6000 at N=16.
 TEST(Window, SymmetricHannDiffersFromPeriodic) {
