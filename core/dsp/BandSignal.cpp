@@ -28,12 +28,14 @@ namespace {
 
 // The band's analytic signal, inverse-transformed in place in `inverse` (made here, of the
 // length the band needs); returns the band limits actually used (rounded to lines).
+template <class Real>
 struct BandCut {
-    std::unique_ptr<ComplexFft<double>> inverse;
+    std::unique_ptr<ComplexFft<Real>> inverse;
     double sampleRateHz = 0, loHz = 0, hiHz = 0;
 };
 
-BandCut cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+template <class Real>
+BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
     const double df = spectrum.lineSpacingHz();
     const std::size_t last = spectrum.bins().size() - 1;
     if (!(hiHz > loHz) || loHz < 0)
@@ -43,10 +45,10 @@ BandCut cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::s
     if (kh <= kl) throw std::invalid_argument("extractBand: the band is narrower than one line or above Nyquist");
     const std::size_t width = kh - kl + 1;
     const std::size_t m = nextFastFftSize(std::max(width, minLength));
-    BandCut cut;
-    cut.inverse = std::make_unique<ComplexFft<double>>(m, FftDirection::Backward);
+    BandCut<Real> cut;
+    cut.inverse = std::make_unique<ComplexFft<Real>>(m, FftDirection::Backward);
     auto data = cut.inverse->data();
-    std::fill(data.begin(), data.end(), std::complex<double>(0.0, 0.0));
+    std::fill(data.begin(), data.end(), std::complex<Real>(0, 0));
     const auto bins = spectrum.bins();
     const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
     const double scale = 2.0 / static_cast<double>(spectrum.length());
@@ -57,7 +59,7 @@ BandCut cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::s
         // (Marple 1999, "Computing the discrete-time analytic signal via FFT").
         const std::size_t k = kl + i;
         const bool outerLine = k == 0 || (spectrum.length() % 2 == 0 && k == spectrum.length() / 2);
-        data[i] = bins[k] * ((outerLine ? 0.5 * scale : scale) * t);
+        data[i] = std::complex<Real>(bins[k] * ((outerLine ? 0.5 * scale : scale) * t));
     }
     cut.inverse->execute();
     cut.sampleRateHz = static_cast<double>(m) * df;
@@ -69,7 +71,7 @@ BandCut cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::s
 } // namespace
 
 BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
-    const BandCut cut = cutBand(spectrum, loHz, hiHz, minLength, taperFraction);
+    const auto cut = cutBand<double>(spectrum, loHz, hiHz, minLength, taperFraction);
     BandSignal out;
     const auto data = cut.inverse->data();
     out.samples.assign(data.begin(), data.end());
@@ -79,11 +81,14 @@ BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz,
     return out;
 }
 
-BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
-    const BandCut cut = cutBand(spectrum, loHz, hiHz, minLength, taperFraction);
-    double m2 = 0, m4 = 0;
+namespace {
+
+template <class Real>
+BandMoments momentsOf(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+    const auto cut = cutBand<Real>(spectrum, loHz, hiHz, minLength, taperFraction);
+    double m2 = 0, m4 = 0; // accumulated in double whatever the transform's precision
     for (const auto& z : cut.inverse->data()) {
-        const double p = std::norm(z);
+        const double p = std::norm(std::complex<double>(z));
         m2 += p;
         m4 += p * p;
     }
@@ -91,6 +96,13 @@ BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz
     m2 /= n;
     m4 /= n;
     return {m2, m2 > 0 ? m4 / (m2 * m2) - 2.0 : 0.0};
+}
+
+} // namespace
+
+BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction, Precision precision) {
+    return precision == Precision::Single ? momentsOf<float>(spectrum, loHz, hiHz, minLength, taperFraction)
+                                          : momentsOf<double>(spectrum, loHz, hiHz, minLength, taperFraction);
 }
 
 } // namespace humwise::dsp

@@ -50,7 +50,8 @@ Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& 
                 continue;
             // Twice the band's lines: |z|^2 and |z|^4 then keep their full bandwidth.
             const auto widthLines = static_cast<std::size_t>(std::ceil(width / df));
-            const BandMoments moments = bandMoments(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
+            // The band search compares kurtoses: single precision is plenty (BandSignal.h).
+            const BandMoments moments = bandMoments(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1, Precision::Single);
             cell.kurtosis = moments.kurtosis;
             // z is the amplitude envelope (BandSignal.h), so the band's real signal has mean square <|z|^2> / 2.
             const double bandDensity = 0.5 * moments.meanSquare / cell.bandwidthHz();
