@@ -186,6 +186,189 @@ std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, cons
     return analysed;
 }
 
+// What the import will read: the manifest's entries, then the files it does not list that name
+// one motor point. Entries that cannot be planned (outside the folder, unknown point, duplicate,
+// missing file, wrong quantity) go to rep.bad; unlisted files naming nothing to rep.unmatched.
+std::vector<Planned> planRecordings(const fs::path& folder, const fs::path& manifestPath, const io::Manifest& man, const fleet::Fleet& fleet,
+                                    ImportReport& rep) {
+    std::error_code ec;
+    std::vector<Planned> plan;
+    std::set<fs::path> listed;
+    std::set<std::pair<std::string, std::string>> points;
+    std::set<std::pair<fs::path, int>> channels;
+    for (const auto& e : man.entries) {
+        Planned p;
+        p.match = {e.file, e.channel, e.motorTag, e.pointName, "manifest"};
+        const fs::path rel(e.file);
+        if (rel.is_absolute() || !inside(folder, (folder / rel).lexically_normal())) {
+            rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the path leaves the walkdown folder"});
+            continue;
+        }
+        p.path = (folder / rel).lexically_normal();
+        listed.insert(p.path); // named by the manifest: never matched again by its file name
+        if (fs::exists(p.path, ec) && !inside(folder, fs::canonical(p.path, ec))) {
+            rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the file is a link out of the walkdown folder"});
+            continue;
+        }
+        p.motor = fleet.motor(e.motorTag);
+        p.point = p.motor ? p.motor->point(e.pointName) : nullptr;
+        if (!p.point) {
+            rep.bad.push_back({e.file, "unknown_point", "manifest line " + std::to_string(e.line) + ": motor '" + e.motorTag + "' has no point '" + e.pointName + "' in the fleet"});
+            continue;
+        }
+        if (!points.insert({e.motorTag, e.pointName}).second || !channels.insert({p.path, e.channel}).second) {
+            rep.bad.push_back({e.file, "duplicate", "manifest line " + std::to_string(e.line) + ": " + e.motorTag + "/" + e.pointName + " or this file and channel is listed twice"});
+            continue;
+        }
+        if (!fs::is_regular_file(p.path, ec)) {
+            rep.bad.push_back({e.file, "missing", "manifest line " + std::to_string(e.line) + ": no such file in the walkdown folder"});
+            continue;
+        }
+        p.unit = e.unit.value_or(p.point->unit);
+        if (e.quantity && *e.quantity != p.point->quantity) {
+            rep.bad.push_back({e.file, "wrong_quantity", "manifest line " + std::to_string(e.line) + ": point " + e.pointName + " measures " + std::string(quantityName(p.point->quantity))});
+            continue;
+        }
+        p.sensitivity = e.sensitivity.value_or(p.point->sensitivity);
+        p.time = text::formatIsoTime(e.time.value_or(man.roundStart));
+        p.speedRpm = e.speedRpm;
+        p.loadPercent = e.loadPercent;
+        plan.push_back(std::move(p));
+    }
+    for (auto it = fs::recursive_directory_iterator(folder, ec); !ec && it != fs::recursive_directory_iterator(); it.increment(ec)) {
+        if (!it->is_regular_file() || it->path() == manifestPath || !isRecordingFile(it->path()) || listed.count(it->path())) continue;
+        const auto rel = it->path().lexically_relative(folder);
+        std::error_code linkEc; // its own: the scan's ec must only end the scan on a scan error
+        if (!inside(folder, fs::canonical(it->path(), linkEc))) {
+            rep.bad.push_back({rel.string(), "outside_folder", "the file is a link out of the walkdown folder"});
+            continue;
+        }
+        const auto hit = matchByName(fleet, rel);
+        if (!hit || points.count({hit->first->motor.tag, hit->second->name})) {
+            rep.unmatched.push_back(rel.string());
+            continue;
+        }
+        points.insert({hit->first->motor.tag, hit->second->name});
+        Planned p;
+        p.match = {rel.string(), 1, hit->first->motor.tag, hit->second->name, "file name"};
+        p.path = it->path();
+        p.motor = hit->first;
+        p.point = hit->second;
+        p.unit = p.point->unit;
+        p.sensitivity = p.point->sensitivity;
+        p.time = rep.roundStart;
+        plan.push_back(std::move(p));
+    }
+    std::sort(rep.unmatched.begin(), rep.unmatched.end());
+    return plan;
+}
+
+// The work on one motor (its plan entries): read each of its files once, hash it, check every
+// recording in it and, when `analyse` and nothing is lost yet, analyse the motor. Sets `lost`
+// when a recording is bad and bad ones are not skipped. Runs on a worker thread: it writes only
+// its own plan entries.
+struct MotorWork {
+    std::vector<std::optional<ImportProblem>> problems; // per entry of the motor
+    LoadedMotor loaded;                                 // the good entries' recordings and file bytes
+    std::vector<std::size_t> good;                      // their plan indices
+    std::optional<MotorAnalysis> analysis;
+};
+
+MotorWork checkAndAnalyse(std::vector<Planned>& plan, const std::vector<std::size_t>& entries, const fleet::MotorDefinition& motor, bool analyse,
+                          bool skipBad, std::atomic<bool>& lost) {
+    MotorWork w;
+    std::map<fs::path, std::shared_ptr<const std::vector<std::byte>>> files;
+    for (std::size_t i : entries) {
+        Planned& p = plan[i];
+        auto& file = files[p.path];
+        std::optional<ImportProblem> problem;
+        if (!file) {
+            auto bytes = io::readFileBytes(p.path);
+            if (bytes) file = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
+            else problem = ImportProblem{p.match.file, "unreadable", bytes.error().message()};
+        }
+        PointRecording recording;
+        if (!problem) problem = check(p, *file, analyse ? &recording : nullptr);
+        if (!problem) {
+            w.good.push_back(i);
+            w.loaded.recordings.push_back(std::move(recording));
+            w.loaded.files.push_back(file);
+        } else if (!skipBad) {
+            lost = true;
+        }
+        w.problems.push_back(std::move(problem));
+    }
+    if (analyse && !lost && !w.good.empty()) {
+        try {
+            w.analysis = analyseMotor(motor, w.loaded.recordings);
+        } catch (const std::invalid_argument&) {
+            // Nothing usable: reported when stored.
+        }
+    }
+    for (auto& r : w.loaded.recordings) r.samples = {}; // the products are all that is kept
+    if (!analyse) w.loaded.files.clear();
+    return w;
+}
+
+// The round's row, its identity hash a placeholder until the import knows every file's
+// (setRoundManifestHash at the end). A route the fleet does not know is noted and left out.
+std::int64_t insertRoundRow(storage::FleetStore& store, const io::Manifest& man, const fleet::Fleet& fleet, const fs::path& folder,
+                            ImportReport& rep) {
+    storage::RoundRow round;
+    round.route = man.route && !man.route->empty() ? man.route : std::nullopt;
+    if (round.route) {
+        bool known = false;
+        for (const auto& r : fleet.routes) known |= r.name == *round.route;
+        if (!known) {
+            rep.notes.push_back("route '" + *round.route + "' is not in the fleet; the round is stored without a route");
+            round.route.reset();
+        }
+    }
+    round.startedAt = rep.roundStart;
+    round.technician = man.technician;
+    round.notes = man.notes;
+    round.manifestHash = "importing " + rep.roundStart + " " + folder.string();
+    round.sourceFolder = folder.string();
+    round.importedAt = nowIso();
+    return store.insertRound(round);
+}
+
+// Stores one motor's work in the round: each raw file once, a recording row per good entry (the
+// ids go into the recordings for the products), then the analysis. The writer thread only.
+void storeMotorWork(storage::FleetStore& store, std::int64_t roundId, const std::vector<Planned>& plan, MotorWork& w,
+                    std::set<std::string>& storedHashes, ImportReport& rep) {
+    for (std::size_t k = 0; k < w.good.size(); ++k) {
+        const Planned& p = plan[w.good[k]];
+        if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *w.loaded.files[k]);
+        storage::RecordingRow row;
+        row.roundId = roundId;
+        row.motorTag = p.motor->motor.tag;
+        row.pointName = p.point->name;
+        row.recordedAt = p.time;
+        row.sampleRateHz = p.sampleRateHz;
+        row.sampleCount = static_cast<std::int64_t>(p.samples);
+        row.fileName = p.match.file;
+        row.fileHash = p.hash;
+        row.fileFormat = p.format;
+        row.channelIndex = p.match.channel - 1;
+        row.unit = std::string(unitSymbol(p.unit));
+        row.sensitivity = p.sensitivity;
+        for (const auto& q : p.quality) {
+            if (!row.quality.empty()) row.quality += ',';
+            row.quality.append(q, 0, q.find(':'));
+        }
+        row.speedRpm = p.speedRpm;
+        row.loadPercent = p.loadPercent;
+        w.loaded.recordings[k].recordingId = store.insertRecording(row);
+        w.loaded.files[k].reset(); // stored: let the bytes go
+    }
+    if (w.analysis) {
+        storeAnalysis(store, roundId, *w.analysis, w.loaded.recordings);
+        rep.findings += w.analysis->result.findings.size();
+        ++rep.motorsAnalysed;
+    }
+}
+
 } // namespace
 
 Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, const fs::path& folderIn, const ImportOptions& options) {
@@ -208,75 +391,7 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         const fleet::Fleet fleet = store.loadFleet();
         if (fleet.motors.empty()) return fail(ImportError{Code::NoFleet, store.database().path().string() + ": the store holds no fleet; import a fleet file first", rep});
 
-        // Plan: manifest entries, then unlisted files matched by name.
-        std::vector<Planned> plan;
-        std::set<fs::path> listed;
-        std::set<std::pair<std::string, std::string>> points;
-        std::set<std::pair<fs::path, int>> channels;
-        for (const auto& e : man.entries) {
-            Planned p;
-            p.match = {e.file, e.channel, e.motorTag, e.pointName, "manifest"};
-            const fs::path rel(e.file);
-            if (rel.is_absolute() || !inside(folder, (folder / rel).lexically_normal())) {
-                rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the path leaves the walkdown folder"});
-                continue;
-            }
-            p.path = (folder / rel).lexically_normal();
-            listed.insert(p.path); // named by the manifest: never matched again by its file name
-            if (fs::exists(p.path, ec) && !inside(folder, fs::canonical(p.path, ec))) {
-                rep.bad.push_back({e.file, "outside_folder", "manifest line " + std::to_string(e.line) + ": the file is a link out of the walkdown folder"});
-                continue;
-            }
-            p.motor = fleet.motor(e.motorTag);
-            p.point = p.motor ? p.motor->point(e.pointName) : nullptr;
-            if (!p.point) {
-                rep.bad.push_back({e.file, "unknown_point", "manifest line " + std::to_string(e.line) + ": motor '" + e.motorTag + "' has no point '" + e.pointName + "' in the fleet"});
-                continue;
-            }
-            if (!points.insert({e.motorTag, e.pointName}).second || !channels.insert({p.path, e.channel}).second) {
-                rep.bad.push_back({e.file, "duplicate", "manifest line " + std::to_string(e.line) + ": " + e.motorTag + "/" + e.pointName + " or this file and channel is listed twice"});
-                continue;
-            }
-            if (!fs::is_regular_file(p.path, ec)) {
-                rep.bad.push_back({e.file, "missing", "manifest line " + std::to_string(e.line) + ": no such file in the walkdown folder"});
-                continue;
-            }
-            p.unit = e.unit.value_or(p.point->unit);
-            if (e.quantity && *e.quantity != p.point->quantity) {
-                rep.bad.push_back({e.file, "wrong_quantity", "manifest line " + std::to_string(e.line) + ": point " + e.pointName + " measures " + std::string(quantityName(p.point->quantity))});
-                continue;
-            }
-            p.sensitivity = e.sensitivity.value_or(p.point->sensitivity);
-            p.time = text::formatIsoTime(e.time.value_or(man.roundStart));
-            p.speedRpm = e.speedRpm;
-            p.loadPercent = e.loadPercent;
-            plan.push_back(std::move(p));
-        }
-        for (auto it = fs::recursive_directory_iterator(folder, ec); !ec && it != fs::recursive_directory_iterator(); it.increment(ec)) {
-            if (!it->is_regular_file() || it->path() == manifestPath || !isRecordingFile(it->path()) || listed.count(it->path())) continue;
-            const auto rel = it->path().lexically_relative(folder);
-            std::error_code linkEc; // its own: the scan's ec must only end the scan on a scan error
-            if (!inside(folder, fs::canonical(it->path(), linkEc))) {
-                rep.bad.push_back({rel.string(), "outside_folder", "the file is a link out of the walkdown folder"});
-                continue;
-            }
-            const auto hit = matchByName(fleet, rel);
-            if (!hit || points.count({hit->first->motor.tag, hit->second->name})) {
-                rep.unmatched.push_back(rel.string());
-                continue;
-            }
-            points.insert({hit->first->motor.tag, hit->second->name});
-            Planned p;
-            p.match = {rel.string(), 1, hit->first->motor.tag, hit->second->name, "file name"};
-            p.path = it->path();
-            p.motor = hit->first;
-            p.point = hit->second;
-            p.unit = p.point->unit;
-            p.sensitivity = p.point->sensitivity;
-            p.time = rep.roundStart;
-            plan.push_back(std::move(p));
-        }
-        std::sort(rep.unmatched.begin(), rep.unmatched.end());
+        std::vector<Planned> plan = planRecordings(folder, manifestPath, man, fleet, rep);
 
         // One pass, one task per motor on the worker threads: read each of its files once, hash
         // it, check every recording in it (rate, length, quantity, quality flags) and, unless this
@@ -293,105 +408,20 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
             motors.push_back(&m);
             entriesOf.push_back(std::move(mine));
         }
-        struct MotorWork {
-            std::vector<std::optional<ImportProblem>> problems; // per entry of the motor
-            LoadedMotor loaded;                                 // the good entries' recordings and file bytes
-            std::vector<std::size_t> good;                      // their plan indices
-            std::optional<MotorAnalysis> analysis;
-        };
         std::atomic<bool> lost{false}; // a bad file and no --skip-bad: check the rest, analyse nothing more
         const bool analyse = !options.dryRun;
-        const auto work = [&](std::size_t m) {
-            MotorWork w;
-            std::map<fs::path, std::shared_ptr<const std::vector<std::byte>>> files;
-            for (std::size_t i : entriesOf[m]) {
-                Planned& p = plan[i];
-                auto& file = files[p.path];
-                std::optional<ImportProblem> problem;
-                if (!file) {
-                    auto bytes = io::readFileBytes(p.path);
-                    if (bytes) file = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
-                    else problem = ImportProblem{p.match.file, "unreadable", bytes.error().message()};
-                }
-                PointRecording recording;
-                if (!problem) problem = check(p, *file, analyse ? &recording : nullptr);
-                if (!problem) {
-                    w.good.push_back(i);
-                    w.loaded.recordings.push_back(std::move(recording));
-                    w.loaded.files.push_back(file);
-                } else if (!options.skipBad) {
-                    lost = true;
-                }
-                w.problems.push_back(std::move(problem));
-            }
-            if (analyse && !lost && !w.good.empty()) {
-                try {
-                    w.analysis = analyseMotor(*motors[m], w.loaded.recordings);
-                } catch (const std::invalid_argument&) {
-                    // Nothing usable: reported when stored.
-                }
-            }
-            for (auto& r : w.loaded.recordings) r.samples = {}; // the products are all that is kept
-            if (!analyse) w.loaded.files.clear();
-            return w;
-        };
+        const auto work = [&](std::size_t m) { return checkAndAnalyse(plan, entriesOf[m], *motors[m], analyse, options.skipBad, lost); };
 
         std::optional<storage::Transaction> tx;
         std::int64_t roundId = 0;
         const auto beginRound = [&] {
             tx.emplace(store.database());
-            storage::RoundRow round;
-            round.route = man.route && !man.route->empty() ? man.route : std::nullopt;
-            if (round.route) {
-                bool known = false;
-                for (const auto& r : fleet.routes) known |= r.name == *round.route;
-                if (!known) {
-                    rep.notes.push_back("route '" + *round.route + "' is not in the fleet; the round is stored without a route");
-                    round.route.reset();
-                }
-            }
-            round.startedAt = rep.roundStart;
-            round.technician = man.technician;
-            round.notes = man.notes;
-            round.manifestHash = "importing " + rep.roundStart + " " + folder.string(); // the walkdown's identity is set at the end
-            round.sourceFolder = folder.string();
-            round.importedAt = nowIso();
-            roundId = store.insertRound(round);
+            roundId = insertRoundRow(store, man, fleet, folder, rep);
         };
         std::set<std::string> storedHashes;
         const auto storeMotor = [&](std::size_t m, MotorWork& w) {
-            for (std::size_t k = 0; k < w.good.size(); ++k) {
-                const Planned& p = plan[w.good[k]];
-                if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *w.loaded.files[k]);
-                storage::RecordingRow row;
-                row.roundId = roundId;
-                row.motorTag = p.motor->motor.tag;
-                row.pointName = p.point->name;
-                row.recordedAt = p.time;
-                row.sampleRateHz = p.sampleRateHz;
-                row.sampleCount = static_cast<std::int64_t>(p.samples);
-                row.fileName = p.match.file;
-                row.fileHash = p.hash;
-                row.fileFormat = p.format;
-                row.channelIndex = p.match.channel - 1;
-                row.unit = std::string(unitSymbol(p.unit));
-                row.sensitivity = p.sensitivity;
-                for (const auto& q : p.quality) {
-                    if (!row.quality.empty()) row.quality += ',';
-                    row.quality.append(q, 0, q.find(':'));
-                }
-                row.speedRpm = p.speedRpm;
-                row.loadPercent = p.loadPercent;
-                w.loaded.recordings[k].recordingId = store.insertRecording(row);
-                w.loaded.files[k].reset(); // stored: let the bytes go
-            }
-            if (w.analysis) {
-                storeAnalysis(store, roundId, *w.analysis, w.loaded.recordings);
-                rep.findings += w.analysis->result.findings.size();
-                ++rep.motorsAnalysed;
-            } else if (!w.good.empty() && !lost) {
-                rep.notes.push_back(motors[m]->motor.tag + ": no usable recording, not analysed");
-            }
+            storeMotorWork(store, roundId, plan, w, storedHashes, rep);
+            if (!w.analysis && !w.good.empty() && !lost) rep.notes.push_back(motors[m]->motor.tag + ": no usable recording, not analysed");
         };
 
         std::vector<bool> isGood(plan.size(), false);
