@@ -55,23 +55,26 @@ bool inside(const fs::path& folder, const fs::path& candidate) {
     return !rel.empty() && *rel.begin() != ".." && !rel.is_absolute();
 }
 
-io::RecordingReadOptions readOptions(const Planned& p) {
+// How to read channel `channel` (1-based) of a file whose samples are `unit` x sensitivity.
+io::RecordingReadOptions readOptionsFor(int channel, Unit unit, double sensitivity) {
     io::RecordingReadOptions o;
-    o.channels.perChannel.resize(static_cast<std::size_t>(p.match.channel));
-    for (auto& c : o.channels.perChannel) c.unit = p.unit;
-    o.channels.perChannel.back().scale = 1.0 / p.sensitivity;
-    o.channels.defaults.unit = p.unit;
+    o.channels.perChannel.resize(static_cast<std::size_t>(channel));
+    for (auto& c : o.channels.perChannel) c.unit = unit;
+    o.channels.perChannel.back().scale = 1.0 / sensitivity;
+    o.channels.defaults.unit = unit;
     return o;
 }
+
+io::RecordingReadOptions readOptions(const Planned& p) { return readOptionsFor(p.match.channel, p.unit, p.sensitivity); }
 
 double minimumRate(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 500.0 : 2560.0; }
 double minimumSeconds(Quantity q) { return (q == Quantity::Current || q == Quantity::Voltage) ? 2.0 : 1.0; }
 
-// Checks one planned recording in its file's bytes; returns the problem, or nothing when it is
-// good - and then, when `keep` is given, the recording in it.
-std::optional<ImportProblem> check(Planned& p, std::span<const std::byte> bytes, PointRecording* keep = nullptr) {
+// Checks one planned recording in its file's bytes (whose SHA-256 is `hash`); returns the
+// problem, or nothing when it is good - and then, when `keep` is given, the recording in it.
+std::optional<ImportProblem> check(Planned& p, std::span<const std::byte> bytes, const std::string& hash, PointRecording* keep = nullptr) {
     const auto bad = [&](const char* kind, std::string reason) { return ImportProblem{p.match.file, kind, std::move(reason)}; };
-    p.hash = util::sha256Hex(bytes);
+    p.hash = hash;
     auto rec = io::parseRecordingBytes(bytes, p.path.string(), readOptions(p));
     if (!rec) return bad("unreadable", rec.error().message());
     const auto& r = rec.value().recording;
@@ -139,42 +142,32 @@ void releaseFreedMemory() {
 #endif
 }
 
-// What a worker loads for one motor: its recordings and, for a new import, the bytes of each
-// recording's file (shared by the channels of one file), stored by the writer thread.
-struct LoadedMotor {
-    std::vector<PointRecording> recordings;
-    std::vector<std::shared_ptr<const std::vector<std::byte>>> files;
-};
-
-// Analyses the motors of one round in parallel (loading their files in the workers) and stores
-// the results from this thread, in fleet order: first beforeStore(tag, loaded) (the import
-// stores the raw files and recording rows there and sets the recording ids), then the products.
-template <class Loader, class BeforeStore>
+// Re-analyses the motors of one round in parallel (loading their recordings in the workers) and
+// stores the products from this thread, in fleet order.
+template <class Loader>
 std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, const fleet::Fleet& fleet, const std::vector<std::string>& motorTags,
-                          Loader&& load, BeforeStore&& beforeStore, const ProgressCallback& progress, unsigned threads, std::size_t& findingsOut,
-                          std::vector<std::string>& notes) {
+                          Loader&& load, const ProgressCallback& progress, unsigned threads, std::size_t& findingsOut, std::vector<std::string>& notes) {
     struct Done {
-        LoadedMotor loaded;
+        std::vector<PointRecording> recordings;
         std::optional<MotorAnalysis> analysis;
     };
     const auto work = [&](std::size_t i) {
         Done d;
-        d.loaded = load(*fleet.motor(motorTags[i]));
+        d.recordings = load(*fleet.motor(motorTags[i]));
         try {
-            d.analysis = analyseMotor(*fleet.motor(motorTags[i]), d.loaded.recordings);
+            d.analysis = analyseMotor(*fleet.motor(motorTags[i]), d.recordings);
         } catch (const std::invalid_argument&) {
             // Nothing usable: reported below.
         }
-        for (auto& r : d.loaded.recordings) r.samples = {}; // the products are all that is kept
+        for (auto& r : d.recordings) r.samples = {}; // the products are all that is kept
         return d;
     };
     std::size_t analysed = 0;
     // One more motor in flight than workers: they keep analysing while this thread (SQLite's one
     // writer) stores.
     inOrder(motorTags.size(), workerThreads(threads), workerThreads(threads) + 1, work, [&](std::size_t i, Done d) {
-        beforeStore(motorTags[i], d.loaded);
         if (d.analysis) {
-            storeAnalysis(store, roundId, *d.analysis, d.loaded.recordings);
+            storeAnalysis(store, roundId, *d.analysis, d.recordings);
             findingsOut += d.analysis->result.findings.size();
             ++analysed;
         } else {
@@ -269,30 +262,39 @@ std::vector<Planned> planRecordings(const fs::path& folder, const fs::path& mani
 // its own plan entries.
 struct MotorWork {
     std::vector<std::optional<ImportProblem>> problems; // per entry of the motor
-    LoadedMotor loaded;                                 // the good entries' recordings and file bytes
-    std::vector<std::size_t> good;                      // their plan indices
+    std::vector<std::size_t> good;                      // the good entries' plan indices,
+    std::vector<PointRecording> recordings;             // their recordings
+    std::vector<std::shared_ptr<const std::vector<std::byte>>> files; // and their files' bytes (shared by a file's channels)
     std::optional<MotorAnalysis> analysis;
 };
 
 MotorWork checkAndAnalyse(std::vector<Planned>& plan, const std::vector<std::size_t>& entries, const fleet::MotorDefinition& motor, bool analyse,
                           bool skipBad, std::atomic<bool>& lost) {
     MotorWork w;
-    std::map<fs::path, std::shared_ptr<const std::vector<std::byte>>> files;
+    struct File {
+        std::shared_ptr<const std::vector<std::byte>> bytes;
+        std::string hash;
+    };
+    std::map<fs::path, File> files; // each file read and hashed once, whatever its channels
     for (std::size_t i : entries) {
         Planned& p = plan[i];
         auto& file = files[p.path];
         std::optional<ImportProblem> problem;
-        if (!file) {
+        if (!file.bytes) {
             auto bytes = io::readFileBytes(p.path);
-            if (bytes) file = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
-            else problem = ImportProblem{p.match.file, "unreadable", bytes.error().message()};
+            if (bytes) {
+                file.bytes = std::make_shared<const std::vector<std::byte>>(std::move(bytes).value());
+                file.hash = util::sha256Hex(*file.bytes);
+            } else {
+                problem = ImportProblem{p.match.file, "unreadable", bytes.error().message()};
+            }
         }
         PointRecording recording;
-        if (!problem) problem = check(p, *file, analyse ? &recording : nullptr);
+        if (!problem) problem = check(p, *file.bytes, file.hash, analyse ? &recording : nullptr);
         if (!problem) {
             w.good.push_back(i);
-            w.loaded.recordings.push_back(std::move(recording));
-            w.loaded.files.push_back(file);
+            w.recordings.push_back(std::move(recording));
+            w.files.push_back(file.bytes);
         } else if (!skipBad) {
             lost = true;
         }
@@ -300,13 +302,13 @@ MotorWork checkAndAnalyse(std::vector<Planned>& plan, const std::vector<std::siz
     }
     if (analyse && !lost && !w.good.empty()) {
         try {
-            w.analysis = analyseMotor(motor, w.loaded.recordings);
+            w.analysis = analyseMotor(motor, w.recordings);
         } catch (const std::invalid_argument&) {
             // Nothing usable: reported when stored.
         }
     }
-    for (auto& r : w.loaded.recordings) r.samples = {}; // the products are all that is kept
-    if (!analyse) w.loaded.files.clear();
+    for (auto& r : w.recordings) r.samples = {}; // the products are all that is kept
+    if (!analyse) w.files.clear();
     return w;
 }
 
@@ -339,7 +341,7 @@ void storeMotorWork(storage::FleetStore& store, std::int64_t roundId, const std:
                     std::set<std::string>& storedHashes, ImportReport& rep) {
     for (std::size_t k = 0; k < w.good.size(); ++k) {
         const Planned& p = plan[w.good[k]];
-        if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *w.loaded.files[k]);
+        if (storedHashes.insert(p.hash).second) store.storeSourceFile(p.hash, *w.files[k]);
         storage::RecordingRow row;
         row.roundId = roundId;
         row.motorTag = p.motor->motor.tag;
@@ -359,11 +361,11 @@ void storeMotorWork(storage::FleetStore& store, std::int64_t roundId, const std:
         }
         row.speedRpm = p.speedRpm;
         row.loadPercent = p.loadPercent;
-        w.loaded.recordings[k].recordingId = store.insertRecording(row);
-        w.loaded.files[k].reset(); // stored: let the bytes go
+        w.recordings[k].recordingId = store.insertRecording(row);
+        w.files[k].reset(); // stored: let the bytes go
     }
     if (w.analysis) {
-        storeAnalysis(store, roundId, *w.analysis, w.loaded.recordings);
+        storeAnalysis(store, roundId, *w.analysis, w.recordings);
         rep.findings += w.analysis->result.findings.size();
         ++rep.motorsAnalysed;
     }
@@ -503,10 +505,9 @@ Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, c
             // Each worker reads one motor's raw files through its own read-only connection (the
             // writer's stays on this thread): memory holds the motors in flight, not the round.
             const auto loader = [&, path = store.database().path()](const fleet::MotorDefinition& m) {
-                LoadedMotor loaded;
+                std::vector<PointRecording> recs;
                 const auto reader = storage::FleetStore::openReadOnly(path);
                 std::map<std::string, std::vector<std::byte>> files;
-                auto& recs = loaded.recordings;
                 for (const auto& r : recordings) {
                     if (r.motorTag != m.motor.tag) continue;
                     if (!files.count(r.fileHash)) files[r.fileHash] = reader->sourceFile(r.fileHash);
@@ -515,12 +516,7 @@ Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, c
                     pr.pointName = r.pointName;
                     pr.speedRpm = r.speedRpm;
                     pr.usable = r.quality.empty();
-                    io::RecordingReadOptions o;
-                    o.channels.perChannel.resize(static_cast<std::size_t>(r.channelIndex + 1));
-                    const Unit unit = parseUnit(r.unit).value_or(Unit::G);
-                    for (auto& c : o.channels.perChannel) c.unit = unit;
-                    o.channels.perChannel.back().scale = 1.0 / r.sensitivity;
-                    o.channels.defaults.unit = unit;
+                    const auto o = readOptionsFor(r.channelIndex + 1, parseUnit(r.unit).value_or(Unit::G), r.sensitivity);
                     auto rec = io::parseRecordingBytes(files.at(r.fileHash), r.fileName, o);
                     if (rec && static_cast<std::size_t>(r.channelIndex) < rec.value().recording.channels.size()) {
                         auto& ch = rec.value().recording.channels[static_cast<std::size_t>(r.channelIndex)];
@@ -532,11 +528,10 @@ Result<ReanalysisReport, ImportError> reanalyseAll(storage::FleetStore& store, c
                     }
                     recs.push_back(std::move(pr));
                 }
-                return loaded;
+                return recs;
             };
             std::vector<std::string> notes;
-            const auto nothingBefore = [](const std::string&, LoadedMotor&) {};
-            out.motors += analyseMotors(store, round.id, fleet, motorTags, loader, nothingBefore, progress, threads, out.findings, notes);
+            out.motors += analyseMotors(store, round.id, fleet, motorTags, loader, progress, threads, out.findings, notes);
             tx.commit();
             ++out.rounds;
         }
