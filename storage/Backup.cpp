@@ -10,6 +10,7 @@
 #include <chrono>
 #include <cstring>
 #include <fstream>
+#include <functional>
 #include <string>
 #include <system_error>
 #include <thread>
@@ -188,11 +189,10 @@ void backupDatabase(Database& from, const fs::path& to) {
     copyIntoNewFile(from.handle(), "cannot back up " + from.path().string(), to, "the backup");
 }
 
-void checkBackupFile(const fs::path& backup) {
-    std::error_code ec;
-    if (!fs::exists(backup, ec)) raise(Code::NotFound, backup.string() + ": no such backup file");
-    if (!fs::is_regular_file(backup, ec)) raise(Code::Invalid, backup.string() + ": not a file");
-    Connection source(backup, SQLITE_OPEN_READONLY, "the backup");
+namespace {
+
+// The checks on the backup, opened read-only as `source` (see Backup.h).
+void checkBackup(Connection& source, const fs::path& backup) {
     try {
         checkIntegrity(source);
     } catch (StorageException& e) {
@@ -209,12 +209,17 @@ void checkBackupFile(const fs::path& backup) {
         raise(Code::Invalid, backup.string() + ": not a Humwise fleet store (schema version " + std::to_string(v) + ", no rounds table) - nothing was changed");
 }
 
-void restoreDatabase(const fs::path& backup, const fs::path& to) {
+} // namespace
+
+void restoreDatabase(const fs::path& backup, const fs::path& to, const std::function<void()>& beforeReplacing) {
     std::error_code ec;
     if (same(backup, to)) raise(Code::Invalid, to.string() + ": the backup and the database are the same file");
     if (fs::is_directory(to, ec)) raise(Code::Invalid, to.string() + ": is a folder, not a database file");
-    checkBackupFile(backup);
+    if (!fs::exists(backup, ec)) raise(Code::NotFound, backup.string() + ": no such backup file");
+    if (!fs::is_regular_file(backup, ec)) raise(Code::Invalid, backup.string() + ": not a file");
     Connection source(backup, SQLITE_OPEN_READONLY, "the backup");
+    checkBackup(source, backup);
+    if (beforeReplacing) beforeReplacing();
 
     if (fs::exists(to, ec) && !hasSqliteHeader(to)) {
         // Not a database at all (overwritten, truncated): no connection can be using it, so it

@@ -25,6 +25,7 @@
 #include "storage/Database.h"
 
 #include <filesystem>
+#include <functional>
 
 namespace humwise::storage {
 
@@ -32,10 +33,9 @@ namespace humwise::storage {
 // refused when it is the source itself).
 void backupDatabase(Database& from, const std::filesystem::path& to);
 
-// The checks restoreDatabase makes on a backup file before anything is changed (see above).
-void checkBackupFile(const std::filesystem::path& backup);
-
-// Replaces the content of the database `to` by that of the backup file `backup`.
-void restoreDatabase(const std::filesystem::path& backup, const std::filesystem::path& to);
+// Replaces the content of the database `to` by that of the backup file `backup`. beforeReplacing,
+// when given, runs once every check has passed and before `to` is touched (the CLI keeps a copy
+// of the store there); what it throws stops the restore with `to` unchanged.
+void restoreDatabase(const std::filesystem::path& backup, const std::filesystem::path& to, const std::function<void()>& beforeReplacing = {});
 
 } // namespace humwise::storage

@@ -2,7 +2,7 @@
 
 #include "app/cli/ArgParser.h"
 #include "app/cli/CliError.h"
-#include "app/cli/StoreCommands.h"
+#include "app/cli/StoreAccess.h"
 #include "storage/Backup.h"
 #include "storage/Database.h"
 #include "storage/Schema.h"
@@ -93,9 +93,9 @@ int runDbRestore(const std::vector<std::string>& args, std::ostream& out) {
     std::error_code ec;
     if (defaultDb) fs::create_directories(fs::path(db).parent_path(), ec); // as the other store commands do
     try {
-        storage::checkBackupFile(file); // refuse a bad backup before touching anything
-        if (sizeOf(db) > 0) out << db << ": the store as it was is kept in " << keepSafetyCopy(db) << '\n';
-        storage::restoreDatabase(file, db);
+        storage::restoreDatabase(file, db, [&, db = db] { // once the backup passed its checks
+            if (sizeOf(db) > 0) out << db << ": the store as it was is kept in " << keepSafetyCopy(db) << '\n';
+        });
         storage::Database restored(db, storage::Database::Mode::ReadOnly);
         out << db << ": restored from " << file << " (schema version " << storage::schemaVersion(restored) << ")\n";
     } catch (const storage::StorageException& e) {

@@ -3,8 +3,6 @@
 // findings, trend, compare. All take --db PATH (default: the user's data directory,
 // $XDG_DATA_HOME/humwise/fleet.db or ~/.local/share/humwise/fleet.db).
 
-#include "app/cli/StoreAccess.h"
-
 #include <ostream>
 #include <string>
 #include <vector>
