@@ -13,8 +13,6 @@
 namespace humwise::cli {
 namespace {
 
-std::string now() { return text::formatIsoTime(std::chrono::floor<std::chrono::milliseconds>(std::chrono::system_clock::now())); }
-
 // The motors the command works on: one (--motor) or the whole fleet.
 std::vector<const fleet::MotorDefinition*> motorsOf(const fleet::Fleet& fleet, const ParsedArgs& a) {
     std::vector<const fleet::MotorDefinition*> out;
@@ -108,7 +106,7 @@ int setLimit(const ParsedArgs& a, std::ostream& out) {
     row.alert = alert;
     row.alarm = alarm;
     row.source = "set by the analyst";
-    row.updatedAt = now();
+    row.updatedAt = text::isoNow();
     guarded([&] {
         storage::Transaction tx(store->database());
         store->setAlarmLimit(row);
@@ -156,7 +154,7 @@ int suggestLimits(const ParsedArgs& a, std::ostream& out) {
                 continue;
             }
             storage::AlarmLimitRow row{m->motor.tag, point, indicator, l.value().method, l.value().alert, l.value().alarm,
-                                       static_cast<int>(std::min<long long>(baseline, static_cast<long long>(values.size()))), l.value().source, now()};
+                                       static_cast<int>(std::min<long long>(baseline, static_cast<long long>(values.size()))), l.value().source, text::isoNow()};
             out << "  " << where << ": alert " << formatLevel(row.alert) << ", alarm " << formatLevel(row.alarm) << " (" << row.method << ")\n";
             rows.push_back(std::move(row));
         }

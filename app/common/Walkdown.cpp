@@ -46,10 +46,6 @@ struct Planned {
     std::vector<std::string> quality;
 };
 
-std::string nowIso() {
-    return text::formatIsoTime(std::chrono::floor<std::chrono::milliseconds>(std::chrono::system_clock::now()));
-}
-
 bool inside(const fs::path& folder, const fs::path& candidate) {
     const auto rel = candidate.lexically_relative(folder);
     return !rel.empty() && *rel.begin() != ".." && !rel.is_absolute();
@@ -331,7 +327,7 @@ std::int64_t insertRoundRow(storage::FleetStore& store, const io::Manifest& man,
     round.notes = man.notes;
     round.manifestHash = "importing " + rep.roundStart + " " + folder.string();
     round.sourceFolder = folder.string();
-    round.importedAt = nowIso();
+    round.importedAt = text::isoNow();
     return store.insertRound(round);
 }
 

@@ -112,7 +112,7 @@ QString LimitsView::saveRow(int row) {
     if (okAlert) a.alert = alert;
     a.alarm = alarm;
     a.source = m_table->item(row, Source)->text().toStdString();
-    a.updatedAt = text::formatIsoTime(std::chrono::floor<std::chrono::milliseconds>(std::chrono::system_clock::now()));
+    a.updatedAt = text::isoNow();
     try {
         storage::Transaction tx(m_session.store().database());
         m_session.store().setAlarmLimit(a);

@@ -135,4 +135,6 @@ std::string formatIsoTime(std::chrono::sys_time<std::chrono::milliseconds> t) {
     return buf;
 }
 
+std::string isoNow() { return formatIsoTime(std::chrono::floor<std::chrono::milliseconds>(std::chrono::system_clock::now())); }
+
 } // namespace humwise::text

@@ -35,5 +35,6 @@ std::optional<long long> parseInteger(std::string_view s);
 // ISO 8601 date-time: YYYY-MM-DD[THH:MM[:SS[.fff]]][Z|+hh:mm|-hh:mm]; no zone means UTC.
 std::optional<std::chrono::sys_time<std::chrono::milliseconds>> parseIsoTime(std::string_view s);
 std::string formatIsoTime(std::chrono::sys_time<std::chrono::milliseconds> t); // "2026-03-04T10:15:00.000Z"
+std::string isoNow(); // formatIsoTime of the system clock now, to the millisecond
 
 } // namespace humwise::text

@@ -1,4 +1,5 @@
-// core/util/Text: the line reader both text readers (manifest, CSV) use for their line numbers.
+// core/util/Text: the line reader both text readers (manifest, CSV) use for their line numbers,
+// and the current time as stored in the fleet store.
 #include "core/util/Text.h"
 
 #include <gtest/gtest.h>
@@ -29,6 +30,17 @@ TEST(LineReader, EmptyAndBlankTextsHaveNoLines) {
     EXPECT_TRUE(linesOf("").empty());
     EXPECT_TRUE(linesOf("\n\r\n \t\n").empty());
     EXPECT_EQ(linesOf("x\n").size(), 1u);
+}
+
+TEST(IsoNow, ReadsBackAsTheCurrentTimeToTheMillisecond) {
+    const auto before = std::chrono::floor<std::chrono::milliseconds>(std::chrono::system_clock::now());
+    const std::string now = isoNow();
+    const auto after = std::chrono::system_clock::now();
+    const auto parsed = parseIsoTime(now);
+    ASSERT_TRUE(parsed.has_value()) << now;
+    EXPECT_GE(*parsed, before);
+    EXPECT_LE(*parsed, after);
+    EXPECT_EQ(now.size(), std::string("2026-03-04T10:15:00.000Z").size()) << now;
 }
 
 } // namespace
