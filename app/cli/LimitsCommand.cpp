@@ -62,7 +62,7 @@ int listLimits(const ParsedArgs& a, std::ostream& out) {
             const auto history = guarded([&] { return store->trend(m->motor.tag, point, indicator); });
             if (history.empty()) continue;
             const auto values = workflow::valuesOf(history);
-            const auto l = guarded([&] { return workflow::effectiveLimits(*store, *m, point, indicator, values); });
+            const auto l = workflow::effectiveLimits(stored, *m, point, indicator, values);
             const bool isStored = std::any_of(stored.begin(), stored.end(), [&](const auto& s) { return s.pointName == point && s.indicator == indicator; });
             const double latest = history.back().value;
             if (json) {

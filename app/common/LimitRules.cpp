@@ -58,11 +58,16 @@ std::vector<double> valuesOf(const std::vector<storage::TrendPoint>& history) {
     return v;
 }
 
-trend::Limits effectiveLimits(storage::FleetStore& store, const fleet::MotorDefinition& motor, const std::string& point,
+trend::Limits effectiveLimits(const std::vector<storage::AlarmLimitRow>& stored, const fleet::MotorDefinition& motor, const std::string& point,
                               const std::string& indicator, std::span<const double> history) {
-    for (const auto& l : store.alarmLimits(motor.motor.tag))
+    for (const auto& l : stored)
         if (l.pointName == point && l.indicator == indicator) return {l.alert, l.alarm, l.method, l.source};
     return defaultLimits(motor, indicator, history);
+}
+
+trend::Limits effectiveLimits(storage::FleetStore& store, const fleet::MotorDefinition& motor, const std::string& point,
+                              const std::string& indicator, std::span<const double> history) {
+    return effectiveLimits(store.alarmLimits(motor.motor.tag), motor, point, indicator, history);
 }
 
 } // namespace humwise::workflow

@@ -52,7 +52,10 @@ trend::Limits defaultLimits(const fleet::MotorDefinition& motor, std::string_vie
 // The values of a stored trend, oldest first (the form the functions above take).
 std::vector<double> valuesOf(const std::vector<storage::TrendPoint>& history);
 
-// The analyst's stored limits for (point, indicator) when there are any, else defaultLimits.
+// The analyst's stored limits for (point, indicator) when `stored` (the motor's) holds them, else
+// defaultLimits. The second form reads the motor's stored limits itself.
+trend::Limits effectiveLimits(const std::vector<storage::AlarmLimitRow>& stored, const fleet::MotorDefinition& motor, const std::string& point,
+                              const std::string& indicator, std::span<const double> history);
 trend::Limits effectiveLimits(storage::FleetStore& store, const fleet::MotorDefinition& motor, const std::string& point,
                               const std::string& indicator, std::span<const double> history);
 
