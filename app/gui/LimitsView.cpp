@@ -1,7 +1,6 @@
 #include "app/gui/LimitsView.h"
 
 #include "app/common/LimitRules.h"
-#include "app/gui/HistoryView.h"
 #include "core/util/Text.h"
 
 #include <QComboBox>
@@ -12,7 +11,6 @@
 #include <QTableWidget>
 #include <QVBoxLayout>
 
-#include <chrono>
 #include <set>
 
 namespace humwise::gui {
