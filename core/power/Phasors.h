@@ -25,7 +25,9 @@
 // Then RMS = sqrt(a_k^2 + b_k^2) / sqrt(2) and phase = atan2(-b_k, a_k), since
 // a cos(wn) + b sin(wn) = sqrt(a^2 + b^2) cos(wn + atan2(-b, a)).
 // Numerics: the normal equations are built in O(N K) (the Gram sums sum_n cos, sin of sums
-// and differences of the w_k in closed form, the Dirichlet kernel) and solved by Cholesky.
+// and differences of the w_k in closed form, the Dirichlet kernel; the sums of x against each
+// tone by Reinsch's form of the Goertzel recursion, all tones in one pass over x, in blocks
+// rotated into place exactly) and solved by Cholesky.
 //
 // Preconditions (std::invalid_argument otherwise): finite samples, at least 2K + 2 of them;
 // the record lasts at least one period of the lowest frequency (shorter records make the fit

@@ -12,6 +12,7 @@
 #include <limits>
 #include <numbers>
 #include <stdexcept>
+#include <string>
 #include <vector>
 
 namespace humwise::power {
@@ -101,6 +102,50 @@ TEST(Phasor, BadParametersThrow) {
     auto bad = x;
     bad[17] = std::numeric_limits<double>::quiet_NaN();
     EXPECT_THROW(phasorAt(bad, 1000, 50.0), std::invalid_argument);
+}
+
+TEST(Phasor, NonFiniteAndOverflowingSamplesAreNamed) {
+    auto x = waveform(1.0, 50, 1000, 1000);
+    x[999] = std::numeric_limits<double>::infinity();
+    try {
+        (void)phasorAt(x, 1000, 50.0);
+        ADD_FAILURE() << "an infinite sample was accepted";
+    } catch (const std::invalid_argument& e) {
+        EXPECT_NE(std::string(e.what()).find("non-finite sample"), std::string::npos) << e.what();
+    }
+    // Finite samples whose sum overflows: refused too, with their own reason.
+    std::vector<double> huge(1000, std::numeric_limits<double>::max());
+    try {
+        (void)phasorAt(huge, 1000, 50.0);
+        ADD_FAILURE() << "an overflowing sum was accepted";
+    } catch (const std::invalid_argument& e) {
+        EXPECT_NE(std::string(e.what()).find("overflows"), std::string::npos) << e.what();
+    }
+}
+
+// The sums of x against each tone run block by block (Phasors.cpp): with few tones several
+// 4096-sample blocks side by side, with many one at a time, and a short last block. A record of
+// 200 003 samples (48 full blocks and a part of 3 samples, whose omission would move the fit
+// by about 1e-5) and tone sets on both sides of that switch: every
+// path must be exact to rounding, at low frequency too (0.5 Hz at 10 kHz, where the plain
+// Goertzel recursion loses digits; Reinsch's form must not).
+TEST(Phasor, LongRecordsAreExactWithFewAndManyTonesAndAtLowFrequency) {
+    const double fs = 10000;
+    const std::size_t n = 200003;
+    for (const std::size_t tones : {1u, 3u, 7u, 8u, 20u}) {
+        std::vector<double> freqs, x(n, 0.0);
+        std::vector<Complex> truth;
+        for (std::size_t i = 0; i < tones; ++i) {
+            freqs.push_back(i == 0 ? 0.5 : 49.93 * static_cast<double>(i) + 0.37);
+            truth.push_back(polarDeg(1.0 / static_cast<double>(i + 1), 17.0 * static_cast<double>(i) - 40.0));
+            test::add(x, waveform(truth.back(), freqs.back(), fs, n));
+        }
+        const ToneFit fit = fitTones(x, fs, freqs);
+        for (std::size_t i = 0; i < tones; ++i) {
+            EXPECT_NEAR(std::abs(toComplex(fit.phasors[i]) - truth[i]), 0.0, 1e-10) << tones << " tones, tone " << i << " at " << freqs[i] << " Hz";
+        }
+        EXPECT_NEAR(fit.residualRms, 0.0, 1e-6) << tones << " tones";
+    }
 }
 
 void expectPhasor(Complex z, double magnitude, double degrees, double tol, const char* what) {
