@@ -1,8 +1,13 @@
 #include "core/dsp/Quality.h"
 
+#include "core/util/Sums.h"
+#include "core/util/VectorClones.h"
+
 #include <algorithm>
+#include <cfloat>
 #include <cmath>
 #include <cstdio>
+#include <utility>
 
 namespace humwise::dsp {
 namespace {
@@ -17,30 +22,130 @@ bool isMotion(Quantity q) {
     return q == Quantity::Acceleration || q == Quantity::Velocity || q == Quantity::Displacement;
 }
 
-// Longest run of identical consecutive finite samples.
-std::size_t longestConstantRun(std::span<const double> x) {
-    std::size_t best = x.empty() ? 0 : 1, run = 1;
-    for (std::size_t i = 1; i < x.size(); ++i) {
-        run = (x[i] == x[i - 1] && std::isfinite(x[i])) ? run + 1 : 1;
-        best = std::max(best, run);
+// Smallest, largest and sum of the finite samples, and how many are not finite. First four
+// lanes with no test per sample: a NaN leaves the minimum and maximum alone but poisons the sum,
+// an infinity shows in them, so when all three come out finite every sample was. Otherwise (or
+// when the sum overflows) the careful loop looks at each sample.
+struct Extent {
+    double lo = INFINITY, hi = -INFINITY, sum = 0;
+    std::size_t nonFinite = 0;
+};
+
+// The four-lane minimum and maximum (vectorises; the lanes are plain locals so that they stay
+// in registers).
+HUMWISE_VECTOR_CLONES
+std::pair<double, double> rangeOf(std::span<const double> x) {
+    double lo0 = INFINITY, lo1 = INFINITY, lo2 = INFINITY, lo3 = INFINITY;
+    double hi0 = -INFINITY, hi1 = -INFINITY, hi2 = -INFINITY, hi3 = -INFINITY;
+    std::size_t i = 0;
+    for (; i + 4 <= x.size(); i += 4) {
+        lo0 = x[i] < lo0 ? x[i] : lo0;
+        lo1 = x[i + 1] < lo1 ? x[i + 1] : lo1;
+        lo2 = x[i + 2] < lo2 ? x[i + 2] : lo2;
+        lo3 = x[i + 3] < lo3 ? x[i + 3] : lo3;
+        hi0 = x[i] > hi0 ? x[i] : hi0;
+        hi1 = x[i + 1] > hi1 ? x[i + 1] : hi1;
+        hi2 = x[i + 2] > hi2 ? x[i + 2] : hi2;
+        hi3 = x[i + 3] > hi3 ? x[i + 3] : hi3;
     }
-    return best;
+    for (; i < x.size(); ++i) {
+        lo0 = x[i] < lo0 ? x[i] : lo0;
+        hi0 = x[i] > hi0 ? x[i] : hi0;
+    }
+    return {std::min({lo0, lo1, lo2, lo3}), std::max({hi0, hi1, hi2, hi3})};
 }
 
-// Runs of >= minRun consecutive samples whose |value| is at `level` (relative tolerance 1e-9).
-std::size_t runsAtLevel(std::span<const double> x, double level, std::size_t minRun) {
-    const double tol = std::abs(level) * 1e-9;
-    std::size_t runs = 0, run = 0;
+Extent extentOf(std::span<const double> x) {
+    const auto [lo, hi] = rangeOf(x);
+    Extent e{lo, hi, util::sumOf(x), 0};
+    if (std::isfinite(e.sum) && (x.empty() || (std::isfinite(e.lo) && std::isfinite(e.hi)))) return e;
+    e = Extent{};
     for (double v : x) {
-        if (std::isfinite(v) && std::abs(std::abs(v) - std::abs(level)) <= tol) {
-            ++run;
+        if (!std::isfinite(v)) {
+            ++e.nonFinite;
+            continue;
+        }
+        e.lo = std::min(e.lo, v);
+        e.hi = std::max(e.hi, v);
+        e.sum += v;
+    }
+    return e;
+}
+
+// In one pass: the longest run of identical consecutive finite samples, and the runs of
+// >= minRun consecutive samples whose |value| is at `level` (relative tolerance 1e-9).
+struct Runs {
+    std::size_t longestConstant = 0;
+    std::size_t atLevel = 0;
+};
+
+// Whether any sample of x[begin, end) (begin >= 1) equals the one before it, sits at the level or
+// is not finite: the rare samples the run counting below must look at. Vectorises.
+HUMWISE_VECTOR_CLONES
+bool anyRunCandidate(const double* x, std::size_t begin, std::size_t end, double target, double tol) {
+    int any = 0;
+    for (std::size_t i = begin; i < end; ++i) {
+        const double a = std::abs(x[i]);
+        any |= (x[i] == x[i - 1]) | (std::abs(a - target) <= tol) | !(a <= DBL_MAX);
+    }
+    return any != 0;
+}
+
+Runs runsOf(std::span<const double> x, double level, std::size_t minRun) {
+    const double target = std::abs(level), tol = target * 1e-9;
+    Runs r;
+    r.longestConstant = x.empty() ? 0 : 1;
+    std::size_t constantRun = 1, levelRun = 0;
+    const auto endLevelRun = [&] {
+        if (levelRun >= minRun) ++r.atLevel;
+        levelRun = 0;
+    };
+    const auto look = [&](std::size_t i) {
+        const double v = x[i];
+        const bool finite = std::isfinite(v);
+        if (i > 0) {
+            constantRun = (v == x[i - 1] && finite) ? constantRun + 1 : 1;
+            r.longestConstant = std::max(r.longestConstant, constantRun);
+        }
+        if (finite && std::abs(std::abs(v) - target) <= tol) ++levelRun;
+        else endLevelRun();
+    };
+    if (!x.empty()) look(0);
+    // Chunks with no candidate sample only end the runs in progress: no sample in them extends
+    // a constant run or sits at the level.
+    constexpr std::size_t kChunk = 64;
+    for (std::size_t begin = 1; begin < x.size(); begin += kChunk) {
+        const std::size_t end = std::min(x.size(), begin + kChunk);
+        if (anyRunCandidate(x.data(), begin, end, target, tol)) {
+            for (std::size_t i = begin; i < end; ++i) look(i);
         } else {
-            if (run >= minRun) ++runs;
-            run = 0;
+            constantRun = 1;
+            endLevelRun();
         }
     }
-    if (run >= minRun) ++runs;
-    return runs;
+    if (levelRun >= minRun) ++r.atLevel;
+    return r;
+}
+
+// Sum and count of the finite samples of a block; the sum of their squared deviations.
+std::pair<double, std::size_t> finiteSum(std::span<const double> x, bool allFinite) {
+    if (allFinite) return {util::sumOf(x), x.size()};
+    double sum = 0;
+    std::size_t count = 0;
+    for (double v : x)
+        if (std::isfinite(v)) {
+            sum += v;
+            ++count;
+        }
+    return {sum, count};
+}
+
+double finiteSquaredDeviations(std::span<const double> x, double about, bool allFinite) {
+    if (allFinite) return util::deviationSums(x, about).squares;
+    double squares = 0;
+    for (double v : x)
+        if (std::isfinite(v)) squares += (v - about) * (v - about);
+    return squares;
 }
 
 } // namespace
@@ -58,63 +163,45 @@ std::string_view qualityFlagName(QualityFlag flag) {
 
 std::vector<QualityIssue> assessQuality(std::span<const double> x, const QualityRequest& r) {
     std::vector<QualityIssue> issues;
-    std::size_t nonFinite = 0;
-    double lo = INFINITY, hi = -INFINITY, sum = 0;
-    for (double v : x) {
-        if (!std::isfinite(v)) {
-            ++nonFinite;
-            continue;
-        }
-        lo = std::min(lo, v);
-        hi = std::max(hi, v);
-        sum += v;
-    }
-    if (nonFinite > 0)
-        issues.push_back({QualityFlag::NonFinite, format("%.0f of %.0f samples are NaN or infinite", double(nonFinite), double(x.size()))});
+    const Extent e = extentOf(x);
+    const double lo = e.lo, hi = e.hi;
+    if (e.nonFinite > 0)
+        issues.push_back({QualityFlag::NonFinite, format("%.0f of %.0f samples are NaN or infinite", double(e.nonFinite), double(x.size()))});
     if (x.size() < r.minSamples) {
         const double fs = r.sampleRateHz > 0 ? r.sampleRateHz : 1.0;
         issues.push_back({QualityFlag::TooShort, format("%.4g s recorded, %.4g s needed", double(x.size()) / fs, double(r.minSamples) / fs)});
     }
-    const std::size_t finite = x.size() - nonFinite;
+    const std::size_t finite = x.size() - e.nonFinite;
     if (finite == 0) return issues;
 
     const double largest = std::max(std::abs(lo), std::abs(hi));
-    const std::size_t longest = longestConstantRun(x);
     if (hi - lo <= largest * 1e-12) {
         issues.push_back({QualityFlag::FlatLine, format("the signal is constant (%.6g)", lo)});
         return issues; // nothing else is meaningful on a constant signal
     }
-    if (finite >= 100 && longest * 10 > finite)
-        issues.push_back({QualityFlag::FlatLine, format("%.0f identical consecutive samples (%.1f %% of the record)", double(longest), 100.0 * double(longest) / double(finite))});
-
     const double extreme = r.fullScale ? *r.fullScale : largest;
-    const std::size_t clippedRuns = runsAtLevel(x, extreme, 3);
-    if (clippedRuns >= 3)
-        issues.push_back({QualityFlag::Clipped, format("%.0f runs of 3 or more samples sit at the limit %.6g", double(clippedRuns), extreme)});
+    const Runs runs = runsOf(x, extreme, 3);
+    if (finite >= 100 && runs.longestConstant * 10 > finite)
+        issues.push_back({QualityFlag::FlatLine, format("%.0f identical consecutive samples (%.1f %% of the record)", double(runs.longestConstant), 100.0 * double(runs.longestConstant) / double(finite))});
+    if (runs.atLevel >= 3)
+        issues.push_back({QualityFlag::Clipped, format("%.0f runs of 3 or more samples sit at the limit %.6g", double(runs.atLevel), extreme)});
 
     if (isMotion(r.quantity) && finite >= 800) {
-        const double mean = sum / static_cast<double>(finite);
+        const bool allFinite = e.nonFinite == 0;
+        const double mean = e.sum / static_cast<double>(finite);
         constexpr std::size_t kBlocks = 8;
         const std::size_t len = x.size() / kBlocks;
         double bmin = INFINITY, bmax = -INFINITY, residual = 0;
         std::size_t residualCount = 0;
         for (std::size_t b = 0; b < kBlocks; ++b) {
-            double bs = 0;
-            std::size_t bc = 0;
-            for (std::size_t i = b * len; i < (b + 1) * len; ++i)
-                if (std::isfinite(x[i])) {
-                    bs += x[i];
-                    ++bc;
-                }
+            const auto block = x.subspan(b * len, len);
+            const auto [bs, bc] = finiteSum(block, allFinite);
             if (bc == 0) continue;
             const double bm = bs / static_cast<double>(bc);
             bmin = std::min(bmin, bm);
             bmax = std::max(bmax, bm);
-            for (std::size_t i = b * len; i < (b + 1) * len; ++i)
-                if (std::isfinite(x[i])) {
-                    residual += (x[i] - bm) * (x[i] - bm);
-                    ++residualCount;
-                }
+            residual += finiteSquaredDeviations(block, bm, allFinite);
+            residualCount += bc;
         }
         const double residualRms = residualCount ? std::sqrt(residual / static_cast<double>(residualCount)) : 0.0;
         if (residualRms > 0 && bmax - bmin > 0.5 * residualRms)

@@ -9,6 +9,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <string>
 
 namespace humwise::dsp {
 namespace {
@@ -61,6 +62,36 @@ TEST(Quality, BiasDriftOnMotionChannelsOnly) {
     auto offset = healthy();
     for (double& v : offset) v += 10.0;
     EXPECT_TRUE(has(assessQuality(offset, {}), QualityFlag::BiasDrift));
+}
+
+std::string detailOf(const std::vector<QualityIssue>& issues, QualityFlag f) {
+    for (const auto& i : issues)
+        if (i.flag == f) return i.detail;
+    return "";
+}
+
+// The run counting skips 64-sample chunks with nothing to look at (Quality.cpp): runs placed
+// across chunk edges, at the very start and end, and a NaN in a chunk of its own must be
+// counted exactly as the rule says.
+TEST(Quality, RunsAcrossChunkEdgesAreCountedExactly) {
+    auto x = healthy();
+    const double limit = 5.0; // above every healthy sample (sigma about 0.75)
+    // Chunks are [1, 65), [65, 129), [129, 193), ...: the run at 126 ends with its chunk, the
+    // next chunk has nothing to look at, the run at 193 starts the one after: two runs, not one.
+    const std::size_t clipAt[] = {0, 62, 126, 193, 1000, x.size() - 3};
+    for (std::size_t at : clipAt)
+        for (std::size_t k = 0; k < 3; ++k) x[at + k] = (k % 2 ? -limit : limit); // |x| at the limit
+    x[300] = limit; // two in a row are not a run of 3
+    x[301] = limit;
+    x[5000] = std::numeric_limits<double>::quiet_NaN();
+    for (std::size_t i = 20000; i < 25000; ++i) x[i] = 0.25; // 5000 identical samples over chunk edges
+    const auto issues = assessQuality(x, {});
+    EXPECT_EQ(detailOf(issues, QualityFlag::Clipped), "6 runs of 3 or more samples sit at the limit 5") << ::testing::PrintToString(issues.size());
+    EXPECT_EQ(detailOf(issues, QualityFlag::NonFinite), "1 of 51200 samples are NaN or infinite");
+    // 5000 of 51199 finite samples is under 10 %: no flat-line flag, until the run is longer.
+    EXPECT_FALSE(has(issues, QualityFlag::FlatLine));
+    for (std::size_t i = 25000; i < 25130; ++i) x[i] = 0.25;
+    EXPECT_EQ(detailOf(assessQuality(x, {}), QualityFlag::FlatLine), "5130 identical consecutive samples (10.0 % of the record)");
 }
 
 TEST(Quality, TooShort) {
