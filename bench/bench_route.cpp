@@ -2,6 +2,7 @@
 // each), generated here, then measured phase by phase, each phase in its own forked child so
 // that its peak resident memory (wait4, ru_maxrss) is its own:
 //   floor    read every file with the core reader + one bare real FFT of every channel;
+//   storage  the raw files alone written into a fresh store in one transaction (no analysis);
 //   import   importWalkdown into a fresh store, 1 analysis thread, then 2 threads;
 //   stages   where the analysis time of one motor goes (velocity spectrum, envelope, current);
 //   scipy    bench/route_pipeline.py, the same analysis scripted with numpy/scipy.
@@ -20,6 +21,7 @@
 #include "core/motor/SpeedEstimation.h"
 #include "core/power/Phasors.h"
 #include "core/power/PowerQuality.h"
+#include "core/io/FileBytes.h"
 #include "core/io/FleetFile.h"
 #include "core/io/Manifest.h"
 #include "core/io/RecordingReader.h"
@@ -364,13 +366,46 @@ void runFloor(const fs::path& walkdown, const Reporter& report) {
     report("checksum", checksum);
 }
 
-// ---- Phase b: the import -----------------------------------------------------------------
-
 double fileSize(const fs::path& p) {
     std::error_code ec;
     const auto s = fs::file_size(p, ec);
     return ec ? 0.0 : static_cast<double>(s);
 }
+
+// ---- Phase a': the storage floor -----------------------------------------------------------
+
+// What keeping the raw files costs by itself, with no analysis: every file's bytes read and
+// written as one blob into a fresh store opened as the fleet store is (16 KiB pages, WAL,
+// synchronous NORMAL), in one transaction; the commit's checkpoint copies the log into the
+// database file and syncs both, as the import's commit does.
+void runStoreFloor(const fs::path& dir, const Reporter& report) {
+    const auto files = manifestFiles(dir / "walkdown");
+    const fs::path db = dir / "store-floor.sqlite";
+    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+    double commitS = 0;
+    const auto t0 = Clock::now();
+    {
+        storage::Database database(db);
+        database.execute("CREATE TABLE raw(id INTEGER PRIMARY KEY, bytes BLOB NOT NULL)");
+        storage::Transaction tx(database);
+        auto insert = database.prepare("INSERT INTO raw(bytes) VALUES (?1)");
+        for (const auto& f : files) {
+            auto bytes = io::readFileBytes(f.path);
+            if (!bytes) throw std::runtime_error(bytes.error().message());
+            insert.bindBlob(1, bytes.value()).run();
+            insert.reset();
+        }
+        const auto t = Clock::now();
+        tx.commit();
+        commitS = secondsSince(t);
+    }
+    report("total_s", secondsSince(t0));
+    report("commit_s", commitS);
+    report("db_bytes", fileSize(db));
+    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+}
+
+// ---- Phase b: the import -----------------------------------------------------------------
 
 void storeFleet(storage::FleetStore& store, const fs::path& fleetFile) {
     auto fleet = io::readFleetFile(fleetFile);
@@ -585,7 +620,7 @@ PhaseResult medianRun(std::vector<PhaseResult> runs, const std::string& key) {
 }
 
 struct Figures {
-    PhaseResult gen, floor, t1, t2, stages;
+    PhaseResult gen, floor, storeFloor, t1, t2, stages;
     std::optional<PhaseResult> scipy;
     std::string scipySkipped;
 };
@@ -617,12 +652,18 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     printRow("floor: read all + one bare FFT per channel", floorS, 1.0, "", f.floor.maxRssMiB,
              "read " + std::to_string(f.floor.values.at("read_s")).substr(0, 5) + " s, FFT " + std::to_string(f.floor.values.at("fft_s")).substr(0, 5) +
                  " s, plans+warm read " + std::to_string(f.floor.values.at("plan_s")).substr(0, 5) + " s (excluded)");
+    const double storeS = f.storeFloor.values.at("total_s");
+    printRow("storage floor: raw files into a store, no analysis", storeS, storeS / floorS, "x floor", f.storeFloor.maxRssMiB,
+             "commit (WAL checkpoint) " + std::to_string(f.storeFloor.values.at("commit_s")).substr(0, 5) + " s; db " +
+                 mib(f.storeFloor.values.at("db_bytes")));
     printImportRow("import, threads = 1 (target <= 3x floor)", f.t1, floorS, largest);
     printImportRow("import, threads = 2", f.t2, floorS, largest);
     for (const auto* r : {&f.t1, &f.t2})
         std::cout << "  import, threads = " << (r == &f.t1 ? 1 : 2) << ": first motor read, checked, analysed and stored at " << std::setprecision(2)
                   << r->values.at("first_motor_s") << " s, the last at " << r->values.at("last_motor_s") << " s; commit (WAL checkpoint) "
                   << r->values.at("import_s") - r->values.at("last_motor_s") << " s\n";
+    std::cout << "  floor + storage floor = " << std::setprecision(2) << floorS + storeS << " s (" << (floorS + storeS) / floorS
+              << "x the floor): reading, one FFT and keeping the raw files, with no analysis at all\n";
     std::cout << "  import speed-up 1 -> 2 threads: " << std::setprecision(2) << t1 / f.t2.values.at("import_s") << "x; motors analysed "
               << static_cast<long>(f.t1.values.at("motors_analysed")) << ", findings " << static_cast<long>(f.t1.values.at("findings"))
               << ", flagged " << static_cast<long>(f.t1.values.at("flagged"))
@@ -665,12 +706,15 @@ Figures measure(const Options& o) {
     // The floor and both imports, interleaved, `repeat` times: each figure is the run of median
     // time (a shared virtual machine's page cache and neighbours move single runs by +-30 %), its
     // peak memory the largest of all runs.
-    std::vector<PhaseResult> floors{f.floor}, ones, twos;
+    std::vector<PhaseResult> floors{f.floor}, storeFloors, ones, twos;
     for (int rep = 0; rep < o.repeat; ++rep) {
         if (rep > 0) {
             floors.push_back(runInChild([&](const Reporter& r) { runFloor(o.dir / "walkdown", r); }));
             require(floors.back(), "floor");
         }
+        std::cout << "storage floor, run " << rep + 1 << " of " << o.repeat << " ...\n";
+        storeFloors.push_back(runInChild([&](const Reporter& r) { runStoreFloor(o.dir, r); }));
+        require(storeFloors.back(), "storage floor");
         for (unsigned threads : {1u, 2u}) {
             std::cout << "import, " << threads << " thread(s), run " << rep + 1 << " of " << o.repeat << " ...\n";
             auto r = runInChild([&](const Reporter& rr) { runImport(o.dir, threads, rr); });
@@ -679,6 +723,7 @@ Figures measure(const Options& o) {
         }
     }
     f.floor = medianRun(floors, "total_s");
+    f.storeFloor = medianRun(storeFloors, "total_s");
     f.t1 = medianRun(ones, "import_s");
     f.t2 = medianRun(twos, "import_s");
     std::cout << "stages of one motor ...\n";
