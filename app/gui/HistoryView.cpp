@@ -15,6 +15,7 @@
 #include <QVBoxLayout>
 
 #include <algorithm>
+#include <cmath>
 #include <set>
 
 namespace humwise::gui {
@@ -42,10 +43,7 @@ HistoryView::HistoryView(StoreSession& session, QWidget* parent) : QWidget(paren
         stylePlot(p);
         enableKeyboardNavigation(p);
     }
-    auto ticker = QSharedPointer<QCPAxisTickerDateTime>(new QCPAxisTickerDateTime);
-    ticker->setDateTimeFormat("yyyy-MM");
-    ticker->setDateTimeSpec(Qt::UTC);
-    m_trend->xAxis->setTicker(ticker);
+    useDateAxis(m_trend->xAxis);
     m_note = new QLabel;
     m_note->setWordWrap(true);
     auto* split = new QSplitter(Qt::Horizontal);
@@ -175,8 +173,10 @@ QString HistoryView::projectionText() const {
                        .arg(m_limits.alert ? QString::number(*m_limits.alert, 'g', 3) : "-")
                        .arg(QString::number(*m_limits.alarm, 'g', 3), QString::fromStdString(m_limits.source));
     if (const auto d = crossingDays())
-        text += tr(" Projected to reach the alarm limit in %1 days (linear least-squares fit of the last %2 rounds, R^2 = %3).")
-                    .arg(*d, 0, 'f', 0).arg(kProjectionRounds).arg(m_projection->r2, 0, 'f', 2);
+        text += tr(" Projected to reach the alarm limit in %1 (linear least-squares fit of the last %2 rounds, R^2 = %3).")
+                    .arg(std::lround(*d) == 1 ? tr("1 day") : tr("%1 days").arg(*d, 0, 'f', 0))
+                    .arg(kProjectionRounds)
+                    .arg(m_projection->r2, 0, 'f', 2);
     else
         text += tr(" No rising trend toward the alarm limit (linear least-squares fit of the last %1 rounds).").arg(kProjectionRounds);
     return text;

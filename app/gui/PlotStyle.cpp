@@ -1,5 +1,7 @@
 #include "app/gui/PlotStyle.h"
 
+#include "app/common/DateTicks.h"
+
 #include <qcustomplot.h>
 
 #include <QFile>
@@ -36,7 +38,27 @@ private:
     QCustomPlot* m_plot;
 };
 
+// Ticks at month starts (or days for short spans), each label once (app/common/DateTicks.h).
+class DateTicker : public QCPAxisTicker {
+public:
+    void generate(const QCPRange& range, const QLocale&, QChar, int, QVector<double>& ticks, QVector<double>* subTicks,
+                  QVector<QString>* tickLabels) override {
+        ticks.clear();
+        if (subTicks) subTicks->clear();
+        if (tickLabels) tickLabels->clear();
+        for (const auto& t : workflow::dateTicks(range.lower / kSecondsPerDay, range.upper / kSecondsPerDay, tickCount() + 1)) {
+            ticks.push_back(t.day * kSecondsPerDay);
+            if (tickLabels) tickLabels->push_back(QString::fromStdString(t.label));
+        }
+    }
+
+private:
+    static constexpr double kSecondsPerDay = 86400.0;
+};
+
 } // namespace
+
+void useDateAxis(QCPAxis* axis) { axis->setTicker(QSharedPointer<QCPAxisTicker>(new DateTicker)); }
 
 QColor traceColour(int i) {
     static const QColor palette[] = {QColor(0x1f, 0x4e, 0x79), QColor(0xc0, 0x6c, 0x16), QColor(0x3b, 0x7a, 0x57), QColor(0x7a, 0x3b, 0x69),

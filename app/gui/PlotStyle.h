@@ -6,6 +6,7 @@
 #include <QString>
 
 class QCustomPlot;
+class QCPAxis;
 class QCPGraph;
 class QWidget;
 
@@ -13,6 +14,9 @@ namespace humwise::gui {
 
 QColor traceColour(int index); // the palette for data traces
 void stylePlot(QCustomPlot* plot);
+// A time axis in seconds since 1970-01-01 UTC, ticked at month starts (days for short spans),
+// each label once.
+void useDateAxis(QCPAxis* axis);
 // +/- zoom the x axis, arrows pan, Home resets to the data (installed as an event filter).
 void enableKeyboardNavigation(QCustomPlot* plot);
 // Save the plot as PNG (2x for HiDPI) or its first graph's data as CSV; returns an error text.

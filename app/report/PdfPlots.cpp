@@ -1,5 +1,7 @@
 #include "app/report/PdfPlots.h"
 
+#include "app/common/DateTicks.h"
+
 #include <QDateTime>
 #include <QPainter>
 #include <QPainterPath>
@@ -105,10 +107,9 @@ void drawTrend(QPainter& p, const QRectF& area, const workflow::TrendPanel& t) {
     Frame f = frame(p, area, QString::fromStdString(t.title), QString::fromStdString(t.unit), x0, x1, y0, y1, false);
     const QFontMetricsF fm(p.font());
     p.setPen(kInk);
-    for (int i = 0; i < 5; ++i) {
-        const double d = x0 + (x1 - x0) * i / 4.0;
-        const QString label = QDateTime::fromSecsSinceEpoch(static_cast<qint64>(d * 86400), Qt::UTC).toString("yyyy-MM");
-        p.drawText(QRectF(f.px(d) - 40, f.plot.bottom() + 2, 80, fm.height()), Qt::AlignHCenter | Qt::AlignTop, label);
+    for (const auto& tick : workflow::dateTicks(x0, x1, 5)) {
+        const QString label = QString::fromStdString(tick.label);
+        p.drawText(QRectF(f.px(tick.day) - 40, f.plot.bottom() + 2, 80, fm.height()), Qt::AlignHCenter | Qt::AlignTop, label);
     }
     const auto limit = [&](double v, const QColor& c, const QString& name) {
         p.setPen(QPen(c, 0.8, Qt::DashLine));
