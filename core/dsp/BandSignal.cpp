@@ -31,13 +31,38 @@ RecordSpectrum::RecordSpectrum(std::span<const double> x, double fs) : m_n(x.siz
 
 namespace {
 
-// The band's analytic signal, inverse-transformed in place in `inverse` (made here, of the
-// length the band needs); returns the band limits actually used (rounded to lines).
+// The band's analytic signal, inverse-transformed in place in `inverse` (a transform of the
+// length the band needs, kept by bandTransform: valid until the next cut on this thread), and
+// the band limits actually used (rounded to lines).
 template <class Real>
 struct BandCut {
-    std::unique_ptr<ComplexFft<Real>> inverse;
+    ComplexFft<Real>* inverse = nullptr;
     double sampleRateHz = 0, loHz = 0, hiHz = 0;
 };
+
+// An inverse transform of length m, kept per thread and length: the kurtogram cuts hundreds of
+// bands per record in a few lengths, and making each transform anew (its buffer mapped and
+// zeroed by the system, then unmapped) cost a fifth of the band search. Bounded by bytes, so
+// that a long record's large bands do not stay behind in a long-lived thread.
+template <class Real>
+ComplexFft<Real>& bandTransform(std::size_t m) {
+    constexpr std::size_t kKeptBytes = std::size_t{16} << 20;
+    struct Kept {
+        std::map<std::size_t, std::unique_ptr<ComplexFft<Real>>> byLength;
+        std::size_t bytes = 0;
+    };
+    thread_local Kept kept;
+    if (auto it = kept.byLength.find(m); it != kept.byLength.end()) return *it->second;
+    const std::size_t bytes = m * sizeof(std::complex<Real>);
+    if (kept.bytes + bytes > kKeptBytes) {
+        kept.byLength.clear();
+        kept.bytes = 0;
+    }
+    auto& slot = kept.byLength[m];
+    slot = std::make_unique<ComplexFft<Real>>(m, FftDirection::Backward);
+    kept.bytes += bytes;
+    return *slot;
+}
 
 // The raised-cosine weights 0.5 - 0.5 cos(pi (e + 0.5) / taper) of the lines e = 0, 1, ... below
 // `taper` at each edge of a band, cached per taper: the kurtogram cuts many bands of each width,
@@ -65,15 +90,15 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
     const std::size_t width = kh - kl + 1;
     const std::size_t m = nextFastFftSize(std::max(width, minLength));
     BandCut<Real> cut;
-    cut.inverse = std::make_unique<ComplexFft<Real>>(m, FftDirection::Backward);
+    cut.inverse = &bandTransform<Real>(m);
     auto data = cut.inverse->data();
-    std::fill(data.begin(), data.end(), std::complex<Real>(0, 0));
+    std::fill(data.begin() + static_cast<std::ptrdiff_t>(width), data.end(), std::complex<Real>(0, 0));
     const auto bins = spectrum.bins();
     const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
     const auto edgeWeights = taper > 0 ? edgeTaper(taper) : nullptr;
     const std::size_t tapered = edgeWeights ? edgeWeights->size() : 0;
     const double scale = 2.0 / static_cast<double>(spectrum.length());
-    for (std::size_t i = 0; i < width; ++i) {
+    const auto line = [&](std::size_t i) {
         const std::size_t edge = std::min(i, width - 1 - i);
         const double t = edge < tapered ? (*edgeWeights)[edge] : 1.0;
         // The analytic signal weights DC and (even N) the Nyquist line by 1/N, the others by 2/N
@@ -81,7 +106,16 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
         const std::size_t k = kl + i;
         const bool outerLine = k == 0 || (spectrum.length() % 2 == 0 && k == spectrum.length() / 2);
         data[i] = std::complex<Real>(bins[k] * ((outerLine ? 0.5 * scale : scale) * t));
+    };
+    // Every line as a middle one (weight 1, 2/N: a plain loop that vectorises), then the tapered
+    // edges and the first and last lines (where DC and Nyquist can only be) line by line.
+    for (std::size_t i = 0; i < width; ++i) data[i] = std::complex<Real>(bins[kl + i] * scale);
+    for (std::size_t e = 0; e < std::min(tapered, width); ++e) {
+        line(e);
+        line(width - 1 - e);
     }
+    line(0);
+    line(width - 1);
     cut.inverse->execute();
     cut.sampleRateHz = static_cast<double>(m) * df;
     cut.loHz = static_cast<double>(kl) * df;

@@ -113,6 +113,25 @@ TEST(Kurtogram, SinglePrecisionBandMomentsAgreeWithDouble) {
     EXPECT_GT(bands, 20u);
 }
 
+// Band transforms are kept per thread and length and reused (BandSignal.cpp): a band cut after
+// others of the same and other lengths - a wider one left the buffer full of its own lines -
+// gives exactly what it gave the first time, and a band signal is what it was.
+TEST(Kurtogram, ReusedBandTransformsLeaveNothingBehind) {
+    const double fs = 25600;
+    std::vector<double> x = test::gaussianNoise(0.3, 25600, 9);
+    const RecordSpectrum spectrum(x, fs);
+    const auto first = bandMoments(spectrum, 3000, 3800, 0, 0.1, Precision::Single);
+    const auto firstSignal = extractBand(spectrum, 3000, 3800, 0, 0.1);
+    for (double lo : {0.0, 6000.0, 100.0})
+        (void)bandMoments(spectrum, lo, lo + (lo == 0.0 ? 12800.0 : 800.0), lo == 100.0 ? 4096 : 0, 0.0, Precision::Single);
+    (void)extractBand(spectrum, 0, 12800, 0, 0.1);
+    (void)extractBand(spectrum, 9000, 9800, 0, 0.0);
+    const auto again = bandMoments(spectrum, 3000, 3800, 0, 0.1, Precision::Single);
+    EXPECT_EQ(again.meanSquare, first.meanSquare);
+    EXPECT_EQ(again.kurtosis, first.kurtosis);
+    EXPECT_EQ(extractBand(spectrum, 3000, 3800, 0, 0.1).samples, firstSignal.samples);
+}
+
 // Antoni 2007: Gaussian noise has SK near 0 in every band, a pure tone -1.
 TEST(Kurtogram, NoiseIsNearZeroAndATonesBandIsNegative) {
     const double fs = 16384;
