@@ -1,6 +1,7 @@
 #include "core/dsp/BandSignal.h"
 
 #include "core/dsp/Fft.h"
+#include "core/util/Sums.h"
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
@@ -18,9 +19,7 @@ namespace humwise::dsp {
 RecordSpectrum::RecordSpectrum(std::span<const double> x, double fs) : m_n(x.size()), m_fs(fs) {
     if (x.size() < 4) throw std::invalid_argument("RecordSpectrum: the record needs at least 4 samples");
     if (!(fs > 0)) throw std::invalid_argument("RecordSpectrum: sample rate must be > 0");
-    double mean = 0;
-    for (double v : x) mean += v;
-    mean /= static_cast<double>(x.size());
+    const double mean = util::sumOf(x) / static_cast<double>(x.size());
     RealFft<double> fft(m_n);
     auto in = fft.input();
     for (std::size_t i = 0; i < m_n; ++i) in[i] = x[i] - mean;

@@ -1,5 +1,7 @@
 #include "core/dsp/Quality.h"
 
+#include "core/dsp/SampleExtent.h"
+
 #include "core/util/Sums.h"
 #include "core/util/VectorClones.h"
 
@@ -20,56 +22,6 @@ std::string format(const char* fmt, double a, double b = 0, double c = 0) {
 
 bool isMotion(Quantity q) {
     return q == Quantity::Acceleration || q == Quantity::Velocity || q == Quantity::Displacement;
-}
-
-// Smallest, largest and sum of the finite samples, and how many are not finite. First four
-// lanes with no test per sample: a NaN leaves the minimum and maximum alone but poisons the sum,
-// an infinity shows in them, so when all three come out finite every sample was. Otherwise (or
-// when the sum overflows) the careful loop looks at each sample.
-struct Extent {
-    double lo = INFINITY, hi = -INFINITY, sum = 0;
-    std::size_t nonFinite = 0;
-};
-
-// The four-lane minimum and maximum (vectorises; the lanes are plain locals so that they stay
-// in registers).
-HUMWISE_VECTOR_CLONES
-std::pair<double, double> rangeOf(std::span<const double> x) {
-    double lo0 = INFINITY, lo1 = INFINITY, lo2 = INFINITY, lo3 = INFINITY;
-    double hi0 = -INFINITY, hi1 = -INFINITY, hi2 = -INFINITY, hi3 = -INFINITY;
-    std::size_t i = 0;
-    for (; i + 4 <= x.size(); i += 4) {
-        lo0 = x[i] < lo0 ? x[i] : lo0;
-        lo1 = x[i + 1] < lo1 ? x[i + 1] : lo1;
-        lo2 = x[i + 2] < lo2 ? x[i + 2] : lo2;
-        lo3 = x[i + 3] < lo3 ? x[i + 3] : lo3;
-        hi0 = x[i] > hi0 ? x[i] : hi0;
-        hi1 = x[i + 1] > hi1 ? x[i + 1] : hi1;
-        hi2 = x[i + 2] > hi2 ? x[i + 2] : hi2;
-        hi3 = x[i + 3] > hi3 ? x[i + 3] : hi3;
-    }
-    for (; i < x.size(); ++i) {
-        lo0 = x[i] < lo0 ? x[i] : lo0;
-        hi0 = x[i] > hi0 ? x[i] : hi0;
-    }
-    return {std::min({lo0, lo1, lo2, lo3}), std::max({hi0, hi1, hi2, hi3})};
-}
-
-Extent extentOf(std::span<const double> x) {
-    const auto [lo, hi] = rangeOf(x);
-    Extent e{lo, hi, util::sumOf(x), 0};
-    if (std::isfinite(e.sum) && (x.empty() || (std::isfinite(e.lo) && std::isfinite(e.hi)))) return e;
-    e = Extent{};
-    for (double v : x) {
-        if (!std::isfinite(v)) {
-            ++e.nonFinite;
-            continue;
-        }
-        e.lo = std::min(e.lo, v);
-        e.hi = std::max(e.hi, v);
-        e.sum += v;
-    }
-    return e;
 }
 
 // In one pass: the longest run of identical consecutive finite samples, and the runs of
@@ -163,7 +115,7 @@ std::string_view qualityFlagName(QualityFlag flag) {
 
 std::vector<QualityIssue> assessQuality(std::span<const double> x, const QualityRequest& r) {
     std::vector<QualityIssue> issues;
-    const Extent e = extentOf(x);
+    const SampleExtent e = sampleExtent(x);
     const double lo = e.lo, hi = e.hi;
     if (e.nonFinite > 0)
         issues.push_back({QualityFlag::NonFinite, format("%.0f of %.0f samples are NaN or infinite", double(e.nonFinite), double(x.size()))});

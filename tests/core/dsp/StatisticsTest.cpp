@@ -8,6 +8,8 @@
 #include <cmath>
 #include <limits>
 #include <random>
+#include <utility>
+#include <vector>
 
 namespace humwise::dsp {
 namespace {
@@ -51,6 +53,29 @@ TEST(Statistics, NonFiniteSamplesAreCountedAndSkipped) {
     EXPECT_EQ(s.count, 4u);
     EXPECT_EQ(s.nonFiniteCount, 2u);
     EXPECT_NEAR(s.rms, 1.0, 1e-12);
+}
+
+// Records with every sample finite take a vectorised path, others a careful one
+// (core/dsp/SampleExtent.h): a noisy record with NaN and infinities sprinkled in must give what
+// the same record without them gives, and the peak is the largest |x - mean| of the samples.
+TEST(Statistics, FiniteAndSprinkledRecordsAgree) {
+    auto clean = test::gaussianNoise(0.7, 10001, 12);
+    for (std::size_t i = 0; i < clean.size(); i += 97) clean[i] += 3.0; // some skew and kurtosis
+    std::vector<double> sprinkled;
+    for (std::size_t i = 0; i < clean.size(); ++i) {
+        if (i % 1000 == 5) sprinkled.push_back(i % 2000 == 5 ? std::numeric_limits<double>::quiet_NaN() : -std::numeric_limits<double>::infinity());
+        sprinkled.push_back(clean[i]);
+    }
+    const auto a = waveformStatistics(clean), b = waveformStatistics(sprinkled);
+    EXPECT_EQ(b.count, a.count);
+    EXPECT_EQ(b.nonFiniteCount, 10u);
+    EXPECT_EQ(b.minimum, a.minimum);
+    EXPECT_EQ(b.maximum, a.maximum);
+    for (const auto& [x, y] : {std::pair{a.dcOffset, b.dcOffset}, {a.rms, b.rms}, {a.peak, b.peak}, {a.kurtosis, b.kurtosis}, {a.skewness, b.skewness}})
+        EXPECT_NEAR(x, y, 1e-12 * std::max(1.0, std::abs(x)));
+    double largest = 0;
+    for (double v : clean) largest = std::max(largest, std::abs(v - a.dcOffset));
+    EXPECT_EQ(a.peak, largest);
 }
 
 TEST(Statistics, EmptyAndConstantInputsAreSafe) {
