@@ -214,8 +214,18 @@ std::vector<Peak> findPeaks(const Spectrum& s, const PeakRequest& r) {
     std::vector<Peak> peaks;
     const std::size_t n = s.values.size();
     if (n < 3 || r.maxPeaks == 0) return peaks;
+    // Only lines inside the (widened) range can be candidates: their indices follow from the line
+    // spacing, one line of margin each side for rounding, and the test below stays the judge. A
+    // single-line reading asks for a few lines of a 50 000-line spectrum dozens of times a motor.
+    std::size_t first = 1, last = n - 2;
+    if (s.resolutionHz > 0) {
+        const double lo = std::floor((r.minFrequencyHz - s.resolutionHz - s.startHz) / s.resolutionHz) - 1;
+        const double hi = std::ceil((r.maxFrequencyHz + s.resolutionHz - s.startHz) / s.resolutionHz) + 1;
+        if (lo > static_cast<double>(first)) first = lo < static_cast<double>(n) ? static_cast<std::size_t>(lo) : n;
+        if (hi < static_cast<double>(last)) last = hi >= 0 ? static_cast<std::size_t>(hi) : 0;
+    }
     std::vector<std::size_t> candidates;
-    for (std::size_t k = 1; k + 1 < n; ++k) {
+    for (std::size_t k = first; k <= last && k + 1 < n; ++k) {
         // A tone inside the range may have its highest line just outside it: widen by one line
         // here and judge the interpolated frequency below.
         const double f = s.frequencyHz(k);

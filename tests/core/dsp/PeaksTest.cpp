@@ -8,7 +8,10 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <limits>
 #include <random>
+#include <utility>
+#include <vector>
 
 namespace humwise::dsp {
 namespace {
@@ -129,6 +132,44 @@ TEST(Peaks, StrongestFirstWithinTheRangeAndProminence) {
     ASSERT_FALSE(band.empty());
     EXPECT_NEAR(band[0].frequencyHz, 100.0, 0.01);
     for (const auto& p : band) EXPECT_LE(p.frequencyHz, 200.0);
+}
+
+// A narrow range is searched only over its own lines (Peaks.cpp): it must find exactly the
+// peaks a whole-spectrum search finds in that range, on a spectrum that does not start at 0 Hz,
+// for ranges at its ends, past them, around a tone sitting just outside, and with no bounds.
+TEST(Peaks, NarrowRangesFindWhatTheWholeSearchFindsThere) {
+    std::mt19937 rng(5);
+    std::uniform_real_distribution<double> u(0.0, 1.0);
+    Spectrum s;
+    s.startHz = 37.5;
+    s.resolutionHz = 0.25;
+    s.window = {WindowKind::Hann};
+    s.scale = SpectrumScale::Rms;
+    s.segmentLength = s.transformLength = 8192;
+    for (int i = 0; i < 4000; ++i) s.values.push_back(0.01 + 0.01 * u(rng) + (i % 97 == 0 ? 1.0 : 0.0));
+    const auto whole = findPeaks(s, {.maxPeaks = 100000});
+    const auto inside = [&](double lo, double hi) {
+        std::vector<Peak> v;
+        for (const auto& p : whole)
+            if (p.frequencyHz >= lo && p.frequencyHz <= hi) v.push_back(p);
+        return v;
+    };
+    const double end = s.frequencyHz(s.lineCount() - 1);
+    for (const auto& [lo, hi] : std::vector<std::pair<double, double>>{
+             {0.0, 40.0}, {37.5, 38.0}, {s.frequencyHz(97) - 0.3, s.frequencyHz(97) + 0.3}, {s.frequencyHz(97) + 0.13, 80.0},
+             {500.0, 520.25}, {end - 2.0, end}, {end + 1.0, end + 50.0}, {-100.0, 30.0}, {0.0, 1e9}}) {
+        const auto got = findPeaks(s, {.maxPeaks = 100000, .minFrequencyHz = lo, .maxFrequencyHz = hi});
+        const auto want = inside(lo, hi);
+        ASSERT_EQ(got.size(), want.size()) << lo << " - " << hi << " Hz";
+        for (std::size_t i = 0; i < got.size(); ++i) {
+            EXPECT_EQ(got[i].frequencyHz, want[i].frequencyHz) << lo << " - " << hi << " Hz";
+            EXPECT_EQ(got[i].amplitude, want[i].amplitude) << lo << " - " << hi << " Hz";
+        }
+        if (lo <= s.frequencyHz(97) && s.frequencyHz(97) <= hi) {
+            EXPECT_FALSE(got.empty()) << "the tone at line 97";
+        }
+    }
+    EXPECT_EQ(findPeaks(s, {.maxPeaks = 100000, .minFrequencyHz = 0, .maxFrequencyHz = std::numeric_limits<double>::infinity()}).size(), whole.size());
 }
 
 TEST(Peaks, PsdSpectraInterpolateInPower) {
