@@ -17,8 +17,10 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <chrono>
 #include <fstream>
+#include <functional>
 #include <iostream>
 #include <map>
 #include <random>
@@ -54,12 +56,18 @@ bool runAndKill(const std::vector<std::string>& args, Micros delay) {
     return running;
 }
 
-// Wall time of one uninterrupted run of the command (the kills land at random moments within it).
-Micros timeOf(const std::vector<std::string>& args) {
-    const auto t0 = std::chrono::steady_clock::now();
-    const auto r = test::runCli(args);
-    EXPECT_EQ(r.exitCode, 0) << r.err;
-    return std::chrono::duration_cast<Micros>(std::chrono::steady_clock::now() - t0);
+// Wall time of uninterrupted runs of the command (the kills land at random moments within it):
+// the fastest of three, each on the arguments `args` gives afresh (a new store copy). One timing
+// taken while the machine was busy (a parallel test run) made later kills land after the end.
+Micros timeOf(const std::function<std::vector<std::string>()>& args) {
+    Micros fastest = Micros::max();
+    for (int i = 0; i < 3; ++i) {
+        const auto t0 = std::chrono::steady_clock::now();
+        const auto r = test::runCli(args());
+        EXPECT_EQ(r.exitCode, 0) << r.err;
+        fastest = std::min(fastest, std::chrono::duration_cast<Micros>(std::chrono::steady_clock::now() - t0));
+    }
+    return fastest;
 }
 
 void removeStore(const fs::path& db) {
@@ -145,7 +153,7 @@ TEST_F(KillDuring, ImportLeavesTheNewRoundAllOrNothingAndTheOldOneIntact) {
     spec.seed = 900;
     const fs::path walk = dir / "new-round";
     test::writeWalkdown(walk, spec);
-    const Micros whole = timeOf({"import", walk.string(), "--db", copyOf(templ, -1).string()});
+    const Micros whole = timeOf([&] { return std::vector<std::string>{"import", walk.string(), "--db", copyOf(templ, -1).string()}; });
     int killedWhileRunning = 0;
     for (int run = 0; run < 24; ++run) {
         const fs::path db = copyOf(templ, run);
@@ -179,7 +187,7 @@ TEST_F(KillDuring, ReanalysisLosesNoRoundAndLeavesNoneHalfAnalysed) {
         before = contentOf(*s);
     }
     ASSERT_EQ(before.size(), 3u);
-    const Micros whole = timeOf({"reanalyse", "--db", copyOf(templ, -1).string()});
+    const Micros whole = timeOf([&] { return std::vector<std::string>{"reanalyse", "--db", copyOf(templ, -1).string()}; });
     int killedWhileRunning = 0;
     std::map<int, int> runsByRedoneRounds;
     for (int run = 0; run < 40; ++run) {
@@ -219,12 +227,11 @@ TEST_F(KillDuring, LimitEditsAreAllOrNothingAndTouchNoRound) {
     std::size_t bulkCount = 0;
     Micros wholeBulk{0}, wholeSingle{0};
     {
-        const fs::path db = copyOf(templ, -1);
-        wholeBulk = timeOf(withDb(bulk, db));
-        bulkCount = limitCount(*storage::FleetStore::open(db, false));
+        fs::path timed;
+        wholeBulk = timeOf([&] { return withDb(bulk, timed = copyOf(templ, -1)); });
+        bulkCount = limitCount(*storage::FleetStore::open(timed, false)); // the last timing run's store
         ASSERT_GE(bulkCount, 20u); // every limit-worthy indicator of both motors
-        removeStore(db);
-        wholeSingle = timeOf(withDb(single, copyOf(templ, -1)));
+        wholeSingle = timeOf([&] { return withDb(single, copyOf(templ, -1)); });
     }
     int killedWhileRunning = 0;
     for (int run = 0; run < 40; ++run) {
