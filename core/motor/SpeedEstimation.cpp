@@ -2,6 +2,7 @@
 
 #include "core/dsp/Peaks.h"
 #include "core/dsp/Zoom.h"
+#include "core/util/Sums.h"
 
 #include <algorithm>
 #include <cmath>
@@ -68,11 +69,8 @@ std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const dou
     // and a quarter of the signal's power; otherwise there is no supply line to speak of.
     const auto p = strongestIn(zs.value(), centre - span / 2, centre + span / 2, 10.0);
     if (!p) return std::nullopt;
-    double meanSquare = 0, mean = 0;
-    for (double v : current) mean += v;
-    mean /= static_cast<double>(current.size());
-    for (double v : current) meanSquare += (v - mean) * (v - mean);
-    meanSquare /= static_cast<double>(current.size());
+    const double n = static_cast<double>(current.size());
+    const double meanSquare = util::deviationSums(current, util::sumOf(current) / n).squares / n;
     if (p->amplitude * p->amplitude < 0.25 * meanSquare) return std::nullopt;
     return LineFrequencyEstimate{p->frequencyHz, p->amplitude, confidenceOf(p->prominence)};
 }
