@@ -1,6 +1,7 @@
 #include "core/dsp/Zoom.h"
 
 #include "core/dsp/Fft.h"
+#include "core/util/Sums.h"
 
 #include <algorithm>
 #include <cmath>
@@ -29,13 +30,8 @@ Result<Spectrum, AnalysisError> zoomSpectrum(std::span<const double> x, double f
     // 200 000 points costs 800 000 cosines to build).
     const auto window = cachedWindow(r.window, n);
     const std::vector<double>& w = *window;
-    double s1 = 0, s2 = 0, mean = 0;
-    for (std::size_t i = 0; i < n; ++i) {
-        s1 += w[i];
-        s2 += w[i] * w[i];
-        mean += x[i];
-    }
-    mean /= static_cast<double>(n);
+    const double s1 = util::sumOf(w), s2 = util::deviationSums(w, 0.0).squares;
+    const double mean = util::sumOf(x) / static_cast<double>(n);
     RealFft<double> fft(nfft);
     auto in = fft.input();
     for (std::size_t i = 0; i < n; ++i) in[i] = (x[i] - mean) * w[i];
