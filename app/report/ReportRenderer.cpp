@@ -178,7 +178,7 @@ int paintMotorSheet(QPagedPaintDevice& device, QPainter& p, const workflow::Moto
     for (const auto& panel : s.spectra) flow.block(210, [&](const QRectF& r) { drawSpectrum(p, r.adjusted(0, 6, 0, -6), panel); });
     for (const auto& t : s.trends) {
         flow.block(190, [&](const QRectF& r) { drawTrend(p, r.adjusted(0, 6, 0, -6), t); });
-        QString note = t.alarm ? QObject::tr("Alarm limits: %1").arg(q(t.limitSource)) : QObject::tr("No alarm limit set for this indicator.");
+        QString note = t.alarm ? QObject::tr("Alarm limits: %1.").arg(q(t.limitSource)) : QObject::tr("No alarm limit set for this indicator.");
         if (t.crossingDay) note += QObject::tr(" Projected crossing of the alarm limit: %1 (%2).")
                                        .arg(QDateTime::fromSecsSinceEpoch(static_cast<qint64>(*t.crossingDay * 86400), Qt::UTC).toString("yyyy-MM-dd"), q(t.model));
         flow.text(note, 7.5, false, QColor(0x40, 0x40, 0x40));
