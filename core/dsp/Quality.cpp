@@ -24,13 +24,6 @@ bool isMotion(Quantity q) {
     return q == Quantity::Acceleration || q == Quantity::Velocity || q == Quantity::Displacement;
 }
 
-// In one pass: the longest run of identical consecutive finite samples, and the runs of
-// >= minRun consecutive samples whose |value| is at `level` (relative tolerance 1e-9).
-struct Runs {
-    std::size_t longestConstant = 0;
-    std::size_t atLevel = 0;
-};
-
 // Whether any sample of x[begin, end) (begin >= 1) equals the one before it, sits at the level or
 // is not finite: the rare samples the run counting below must look at. Vectorises.
 HUMWISE_VECTOR_CLONES
@@ -42,6 +35,13 @@ bool anyRunCandidate(const double* x, std::size_t begin, std::size_t end, double
     }
     return any != 0;
 }
+
+// In one pass: the longest run of identical consecutive finite samples, and the runs of
+// >= minRun consecutive samples whose |value| is at `level` (relative tolerance 1e-9).
+struct Runs {
+    std::size_t longestConstant = 0;
+    std::size_t atLevel = 0;
+};
 
 Runs runsOf(std::span<const double> x, double level, std::size_t minRun) {
     const double target = std::abs(level), tol = target * 1e-9;

@@ -55,5 +55,4 @@ SampleExtent sampleExtent(std::span<const double> x) {
     return e;
 }
 
-
 } // namespace humwise::dsp
