@@ -12,7 +12,6 @@
 
 #include <cstdio>
 #include <fstream>
-#include <regex>
 #include <sstream>
 #include <unistd.h>
 
@@ -65,16 +64,26 @@ protected:
     static inline fs::path dir, db;
 };
 
-int pages(const fs::path& pdf) {
-    std::smatch m;
-    const std::string info = shell("pdfinfo '" + pdf.string() + "'");
-    return std::regex_search(info, m, std::regex("Pages:\\s+(\\d+)")) ? std::stoi(m[1]) : -1;
+// The value pdfinfo prints after "key:" (spaces trimmed), or "" when it prints no such line.
+std::string pdfinfoField(const fs::path& pdf, const std::string& key) {
+    std::istringstream info(shell("pdfinfo '" + pdf.string() + "'"));
+    for (std::string line; std::getline(info, line);)
+        if (line.rfind(key + ":", 0) == 0) {
+            const auto start = line.find_first_not_of(' ', key.size() + 1);
+            return start == std::string::npos ? "" : line.substr(start);
+        }
+    return "";
 }
 
+int pages(const fs::path& pdf) {
+    const std::string v = pdfinfoField(pdf, "Pages");
+    return v.empty() ? -1 : std::stoi(v);
+}
+
+// "595.276 x 841.89" of "Page size:      595.276 x 841.89 pts (A4)".
 std::string pageSize(const fs::path& pdf) {
-    std::smatch m;
-    const std::string info = shell("pdfinfo '" + pdf.string() + "'");
-    return std::regex_search(info, m, std::regex("Page size:\\s+([0-9.]+ x [0-9.]+)")) ? std::string(m[1]) : std::string();
+    const std::string v = pdfinfoField(pdf, "Page size");
+    return v.substr(0, v.find(" pts"));
 }
 
 // Number of drawn paths in the SVG poppler makes of a page: vector plots add hundreds.
