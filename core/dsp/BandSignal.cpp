@@ -42,7 +42,8 @@ struct BandCut {
 // An inverse transform of length m, kept per thread and length: the kurtogram cuts hundreds of
 // bands per record in a few lengths, and making each transform anew (its buffer mapped and
 // zeroed by the system, then unmapped) cost a fifth of the band search. Bounded by bytes, so
-// that a long record's large bands do not stay behind in a long-lived thread.
+// that a long record's large bands do not stay behind in a long-lived thread: at most 16 MiB,
+// or the one transform last asked for when that alone is larger.
 template <class Real>
 ComplexFft<Real>& bandTransform(std::size_t m) {
     constexpr std::size_t kKeptBytes = std::size_t{16} << 20;
