@@ -372,6 +372,11 @@ double fileSize(const fs::path& p) {
     return ec ? 0.0 : static_cast<double>(s);
 }
 
+// A store's file and the write-ahead log and index SQLite keeps beside it.
+void removeStore(const fs::path& db) {
+    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+}
+
 // ---- Phase a': the storage floor -----------------------------------------------------------
 
 // What keeping the raw files costs by itself, with no analysis: every file's bytes read and
@@ -381,7 +386,7 @@ double fileSize(const fs::path& p) {
 void runStoreFloor(const fs::path& dir, const Reporter& report) {
     const auto files = manifestFiles(dir / "walkdown");
     const fs::path db = dir / "store-floor.sqlite";
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+    removeStore(db);
     double commitS = 0;
     const auto t0 = Clock::now();
     {
@@ -402,7 +407,7 @@ void runStoreFloor(const fs::path& dir, const Reporter& report) {
     report("total_s", secondsSince(t0));
     report("commit_s", commitS);
     report("db_bytes", fileSize(db));
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+    removeStore(db);
 }
 
 // ---- Phase b: the import -----------------------------------------------------------------
@@ -417,7 +422,7 @@ void storeFleet(storage::FleetStore& store, const fs::path& fleetFile) {
 
 void runImport(const fs::path& dir, unsigned threads, const Reporter& report) {
     const fs::path db = dir / ("route-t" + std::to_string(threads) + ".sqlite");
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+    removeStore(db);
     {
         auto store = storage::FleetStore::open(db, true);
         auto t = Clock::now();
