@@ -69,10 +69,12 @@ void reinschBlocks(const double* x, std::size_t len, std::size_t blocks, double 
 // of the sum is then conj(G exp(-j w (L-1))) exp(j w start) (x is real).
 std::vector<Complex> toneSums(std::span<const double> x, double mean, std::span<const double> w) {
     const std::size_t k = w.size();
-    std::vector<double> lambda(k);
+    std::vector<double> lambda(k), cosW(k), sinW(k);
     for (std::size_t t = 0; t < k; ++t) {
         const double half = std::sin(w[t] / 2.0);
         lambda[t] = -4.0 * half * half;
+        cosW[t] = std::cos(w[t]);
+        sinW[t] = std::sin(w[t]);
     }
     std::vector<Complex> sums(k);
     std::vector<double> s(kSideBySide * k), u(kSideBySide * k);
@@ -87,7 +89,7 @@ std::vector<Complex> toneSums(std::span<const double> x, double mean, std::span<
         for (std::size_t b = 0; b < blocks; ++b, start += len)
             for (std::size_t t = 0; t < k; ++t) {
                 const double sv = s[b * k + t], uv = u[b * k + t];
-                const Complex g(-0.5 * lambda[t] * sv + std::cos(w[t]) * uv, std::sin(w[t]) * (sv - uv));
+                const Complex g(-0.5 * lambda[t] * sv + cosW[t] * uv, sinW[t] * (sv - uv));
                 const double lastPhase = w[t] * static_cast<double>(len - 1);
                 sums[t] += std::conj(g * std::polar(1.0, -lastPhase)) * std::polar(1.0, w[t] * static_cast<double>(start));
             }
