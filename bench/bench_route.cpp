@@ -496,14 +496,15 @@ double medianTime(int reps, const std::function<void()>& f) {
 void timeCurrentParts(const std::vector<std::vector<double>>& phases, double nominalHz, int reps, const Reporter& report) {
     const auto& a = phases.front();
     const double fs = kCurrentRateHz;
-    const auto line = motor::estimateSupplyFrequency(a, fs, nominalHz, false);
+    const auto transform = dsp::ZoomTransform::of(a, fs);
+    if (!transform) throw std::runtime_error("R-001 I-A: " + transform.error().message);
+    const auto line = motor::estimateSupplyFrequency(a, transform.value(), nominalHz, false);
     if (!line) throw std::runtime_error("no supply line in R-001 I-A");
     const double f = line->hz;
-    report("cur_supply_s", medianTime(reps, [&] { (void)motor::estimateSupplyFrequency(a, fs, nominalHz, false); }));
-    dsp::ZoomRequest z;
-    z.centreHz = f;
-    z.spanHz = std::min(2.0 * (2.0 * 0.05 * f + 2.0), 2.0 * f - 1.0);
-    report("cur_zoom_s", medianTime(reps, [&] { (void)dsp::zoomSpectrum(a, fs, z); }));
+    report("cur_transform_s", medianTime(reps, [&] { (void)dsp::ZoomTransform::of(a, fs); }));
+    report("cur_supply_s", medianTime(reps, [&] { (void)motor::estimateSupplyFrequency(a, transform.value(), nominalHz, false); }));
+    const double span = std::min(2.0 * (2.0 * 0.05 * f + 2.0), 2.0 * f - 1.0);
+    report("cur_zoom_s", medianTime(reps, [&] { (void)transform.value().band(f, span, dsp::SpectrumScale::Rms, Quantity::Current); }));
     dsp::SpectrumRequest w;
     w.resolutionHz = std::max(0.1, fs / static_cast<double>(a.size()));
     w.fmaxHz = std::min(fs / 2.56, 2500.0);
@@ -693,7 +694,8 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     std::cout << "  one vibration channel, envelope fmax 500 Hz          " << 1e3 * s.at("vib_envelope_500_s") << " ms\n";
     std::cout << "  one vibration channel, envelope fmax 1000 Hz         " << 1e3 * s.at("vib_envelope_1000_s") << " ms\n";
     std::cout << "  current phase set (supply, zoom, wide, phasors, harm.) " << 1e3 * s.at("current_s") << " ms\n";
-    std::cout << "    supply frequency " << 1e3 * s.at("cur_supply_s") << " ms, zoom " << 1e3 * s.at("cur_zoom_s") << " ms, wide spectrum "
+    std::cout << "    phase A's zoom transform " << 1e3 * s.at("cur_transform_s") << " ms, then from it supply frequency " << 1e3 * s.at("cur_supply_s")
+              << " ms and zoom " << 1e3 * s.at("cur_zoom_s") << " ms; wide spectrum "
               << 1e3 * s.at("cur_wide_s") << " ms, 3 phasors " << 1e3 * s.at("cur_phasors_s") << " ms, harmonics " << 1e3 * s.at("cur_harmonics_s")
               << " ms\n";
     std::cout << "  import (1 thread) not spent in analyseMotor: ~" << std::setprecision(2) << t1 - s.at("motor_s") * o.motors

@@ -17,17 +17,17 @@ PhaseSetProducts analysePhaseSet(const std::string& name, const std::vector<std:
     PhaseSetProducts out;
     out.name = name;
     out.sampleRateHz = fs;
-    const auto line = motor::estimateSupplyFrequency(a, fs, nominalHz, driveFed);
+    // One Blackman-Harris transform of phase A serves the supply search and the zoom.
+    const auto transform = dsp::ZoomTransform::of(a, fs);
+    if (!transform.ok()) throw std::invalid_argument(name + ": " + transform.error().message);
+    const auto line = motor::estimateSupplyFrequency(a, transform.value(), nominalHz, driveFed);
     if (!line) throw std::invalid_argument(name + ": no supply line found in phase A");
     out.line = *line;
     const double f = line->hz;
 
-    dsp::ZoomRequest z;
-    z.centreHz = f;
-    z.spanHz = 2.0 * (2.0 * maxSlip * f + 2.0);
-    z.spanHz = std::min(z.spanHz, 2.0 * f - 1.0);
-    z.quantity = quantity;
-    auto zs = dsp::zoomSpectrum(a, fs, z);
+    double span = 2.0 * (2.0 * maxSlip * f + 2.0);
+    span = std::min(span, 2.0 * f - 1.0);
+    auto zs = transform.value().band(f, span, dsp::SpectrumScale::Rms, quantity);
     if (!zs.ok()) throw std::invalid_argument(name + ": " + zs.error().message);
     out.zoom = std::move(zs).value();
 

@@ -16,6 +16,7 @@
 
 #include <optional>
 #include <span>
+#include <vector>
 
 namespace humwise::dsp {
 
@@ -26,6 +27,28 @@ struct ZoomRequest {
     WindowSpec window{WindowKind::BlackmanHarris};
     SpectrumScale scale = SpectrumScale::Rms;
     Quantity quantity = Quantity::Current;
+};
+
+// The record's windowed transform (as zoomSpectrum makes it), kept so that several bands can be
+// cut from one transform: the supply-frequency search and the current analysis zoom on the same
+// phase. Holds |X[k]|^2 of the one-sided lines (8 bytes a line).
+class ZoomTransform {
+public:
+    [[nodiscard]] static Result<ZoomTransform, AnalysisError> of(std::span<const double> x, double sampleRateHz,
+                                                                 std::optional<double> resolutionHz = std::nullopt,
+                                                                 const WindowSpec& window = WindowSpec{WindowKind::BlackmanHarris});
+    // The lines of [centre - span/2, centre + span/2]: what zoomSpectrum gives for the same request.
+    [[nodiscard]] Result<Spectrum, AnalysisError> band(double centreHz, double spanHz, SpectrumScale scale = SpectrumScale::Rms,
+                                                       Quantity quantity = Quantity::Current) const;
+    double sampleRateHz() const { return m_fs; }
+    std::size_t recordLength() const { return m_n; }
+    const WindowSpec& window() const { return m_window; }
+
+private:
+    double m_fs = 0, m_s1 = 0, m_s2 = 0;
+    std::size_t m_n = 0, m_nfft = 0;
+    WindowSpec m_window;
+    std::vector<double> m_power;
 };
 
 [[nodiscard]] Result<Spectrum, AnalysisError> zoomSpectrum(std::span<const double> x, double sampleRateHz,

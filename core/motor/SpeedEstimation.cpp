@@ -45,6 +45,14 @@ double maxPlausibleSlip(const Nameplate& n) {
 
 std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const double> current, double fs, double nominalHz,
                                                              bool driveFed) {
+    const auto zoom = dsp::ZoomTransform::of(current, fs);
+    if (!zoom.ok()) return std::nullopt;
+    return estimateSupplyFrequency(current, zoom.value(), nominalHz, driveFed);
+}
+
+std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const double> current, const dsp::ZoomTransform& zoom,
+                                                             double nominalHz, bool driveFed) {
+    const double fs = zoom.sampleRateHz();
     double centre = nominalHz;
     double span = std::min(10.0, nominalHz);
     if (driveFed) {
@@ -59,11 +67,7 @@ std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const dou
         centre = p->frequencyHz;
         span = 4.0 * s.value().resolutionHz + 1.0;
     }
-    dsp::ZoomRequest z;
-    z.centreHz = centre;
-    z.spanHz = span;
-    z.scale = dsp::SpectrumScale::Rms;
-    auto zs = dsp::zoomSpectrum(current, fs, z);
+    auto zs = zoom.band(centre, span, dsp::SpectrumScale::Rms);
     if (!zs.ok()) return std::nullopt;
     // The supply line must dominate a stator current (or voltage): at least 20 dB above the floor
     // and a quarter of the signal's power; otherwise there is no supply line to speak of.

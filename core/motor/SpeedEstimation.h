@@ -17,6 +17,7 @@
 // the direct-on-line form slip / rated slip).
 
 #include "core/dsp/Spectrum.h"
+#include "core/dsp/Zoom.h"
 #include "core/motor/FaultFrequencies.h"
 #include "core/motor/Motor.h"
 
@@ -44,6 +45,10 @@ struct SpeedEstimate {
 double maxPlausibleSlip(const Nameplate& nameplate);
 
 std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const double> current, double sampleRateHz,
+                                                             double nominalHz, bool driveFed);
+// The same from the record's zoom transform (its default resolution and window, or any other
+// fine enough), when the caller zooms on the same record afterwards: one transform, not two.
+std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const double> current, const dsp::ZoomTransform& zoom,
                                                              double nominalHz, bool driveFed);
 
 // `spectrum`: a vibration spectrum (any scale) fine enough to place 1X (a few lines per slip Hz).

@@ -8,6 +8,8 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <utility>
+#include <vector>
 
 namespace humwise::dsp {
 namespace {
@@ -62,6 +64,34 @@ TEST(Zoom, BadBandsAreRefused) {
     r.centreHz = 50;
     r.spanHz = 0;
     EXPECT_EQ(zoomSpectrum(x, 1000.0, r).error().code, AnalysisError::Code::InvalidRequest);
+}
+
+// One transform, several bands: the supply search and the current analysis cut their bands
+// from the same Blackman-Harris transform of phase A; each band is what zoomSpectrum gives.
+TEST(Zoom, OneTransformServesSeveralBands) {
+    const double fs = 2000.0;
+    auto x = test::sine(10.0, 49.97, fs, 40'000);
+    test::add(x, test::sine(0.01, 47.5, fs, 40'000, 0.3));
+    const auto t = ZoomTransform::of(x, fs, 0.02);
+    ASSERT_TRUE(t.ok()) << t.error().message;
+    for (const auto& [centre, span] : {std::pair{50.0, 10.0}, std::pair{49.97, 5.4}, std::pair{0.0, 3.0}}) {
+        ZoomRequest r;
+        r.centreHz = centre;
+        r.spanHz = span;
+        r.resolutionHz = 0.02;
+        const auto alone = zoomSpectrum(x, fs, r).value();
+        const auto cut = t.value().band(centre, span).value();
+        EXPECT_EQ(cut.values, alone.values);
+        EXPECT_EQ(cut.startHz, alone.startHz);
+        EXPECT_EQ(cut.resolutionHz, alone.resolutionHz);
+        EXPECT_EQ(cut.enbwHz, alone.enbwHz);
+        EXPECT_EQ(cut.transformLength, alone.transformLength);
+    }
+    const auto line = findPeaks(t.value().band(50.0, 10.0).value(), {.maxPeaks = 1});
+    ASSERT_EQ(line.size(), 1u);
+    EXPECT_NEAR(line[0].frequencyHz, 49.97, 0.002);
+    EXPECT_EQ(t.value().band(999.0, 10.0).error().code, AnalysisError::Code::InvalidRequest);
+    EXPECT_EQ(ZoomTransform::of(std::vector<double>(8, 1.0), fs).error().code, AnalysisError::Code::RecordTooShort);
 }
 
 } // namespace
