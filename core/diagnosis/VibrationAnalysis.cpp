@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <stdexcept>
 
 namespace humwise::diagnosis {
@@ -49,7 +50,12 @@ VibrationProducts analyseVibration(const VibrationInput& in, double envelopeFmax
     r.fmaxHz = std::min(fs / 2.56, 2000.0);
     r.scale = dsp::SpectrumScale::Rms;
     r.quantity = in.quantity;
-    auto s = dsp::averagedSpectrum(in.samples, fs, r);
+    // The envelope's band search needs the whole record's transform; when the spectrum is one
+    // segment of the whole record (a route's 4 s at 0.25 Hz lines), it is derived from it too.
+    const bool wantsEnvelope = in.quantity == Quantity::Acceleration && fs / 2 > 2 * envelopeFmaxHz;
+    std::optional<dsp::RecordSpectrum> record;
+    if (wantsEnvelope) record.emplace(in.samples, fs);
+    auto s = record ? dsp::averagedSpectrum(*record, in.samples, r) : dsp::averagedSpectrum(in.samples, fs, r);
     if (!s.ok()) throw std::invalid_argument("vibration channel '" + in.name + "': " + s.error().message);
     p.velocity = std::move(s).value();
     dsp::convertSpectrum(p.velocity, Quantity::Velocity, 2.0);
@@ -57,10 +63,10 @@ VibrationProducts analyseVibration(const VibrationInput& in, double envelopeFmax
     p.isoBandHighHz = std::min(1000.0, p.velocity.frequencyHz(p.velocity.lineCount() - 1));
     p.overallVelocityRms = dsp::bandRms(p.velocity, p.isoBandLowHz, p.isoBandHighHz);
 
-    if (in.quantity == Quantity::Acceleration && fs / 2 > 2 * envelopeFmaxHz) {
+    if (wantsEnvelope) {
         dsp::EnvelopeRequest e = envelopeRequest(envelopeFmaxHz, fs);
         e.autoBand = true;
-        auto env = dsp::envelopeSpectrum(in.samples, fs, e);
+        auto env = dsp::envelopeSpectrum(*record, e);
         if (env.ok()) p.envelope = std::move(env).value();
     }
     return p;

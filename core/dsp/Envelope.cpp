@@ -11,7 +11,13 @@ Result<EnvelopeResult, AnalysisError> envelopeSpectrum(std::span<const double> x
     using Code = AnalysisError::Code;
     if (!(fs > 0)) return fail(AnalysisError{Code::InvalidRequest, "envelope: sample rate must be > 0"});
     if (x.size() < 256) return fail(AnalysisError{Code::RecordTooShort, "envelope: the record needs at least 256 samples"});
-    const RecordSpectrum record(x, fs);
+    return envelopeSpectrum(RecordSpectrum(x, fs), r);
+}
+
+Result<EnvelopeResult, AnalysisError> envelopeSpectrum(const RecordSpectrum& record, const EnvelopeRequest& r) {
+    using Code = AnalysisError::Code;
+    const double fs = record.sampleRateHz();
+    if (record.length() < 256) return fail(AnalysisError{Code::RecordTooShort, "envelope: the record needs at least 256 samples"});
     EnvelopeResult out;
     if (r.autoBand) {
         try {

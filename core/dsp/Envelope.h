@@ -38,5 +38,7 @@ inline constexpr double kDefaultEnvelopeFmaxHz = 1000.0;
 
 [[nodiscard]] Result<EnvelopeResult, AnalysisError> envelopeSpectrum(std::span<const double> x, double sampleRateHz,
                                                                       const EnvelopeRequest& request);
+// The same from the record's transform, when the caller has it already.
+[[nodiscard]] Result<EnvelopeResult, AnalysisError> envelopeSpectrum(const RecordSpectrum& record, const EnvelopeRequest& request);
 
 } // namespace humwise::dsp

@@ -1,5 +1,6 @@
 #include "core/dsp/Spectrum.h"
 
+#include "core/dsp/BandSignal.h"
 #include "core/dsp/Fft.h"
 
 #include <algorithm>
@@ -110,52 +111,135 @@ double scaleLine(double meanSquaredMagnitude, bool isEdge, SpectrumScale scale, 
     return peak;
 }
 
-Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, double fs, const SpectrumRequest& r) {
+namespace {
+
+// What a request asks of a record of `available` samples, checked: the segment length, the step
+// between segments, how many are averaged, the highest frequency kept.
+struct SegmentPlan {
+    std::size_t n = 0, step = 0, averages = 0;
+    double fmax = 0;
+};
+
+Result<SegmentPlan, AnalysisError> planSegments(std::size_t available, double fs, const SpectrumRequest& r) {
     using Code = AnalysisError::Code;
     if (!(fs > 0) || !std::isfinite(fs))
         return fail(AnalysisError{Code::InvalidRequest, requestError("sample rate must be > 0")});
     if (!(r.overlap >= 0.0 && r.overlap < 1.0))
         return fail(AnalysisError{Code::InvalidRequest, requestError("overlap must be in [0, 1)")});
-    if (x.size() < 2)
+    if (available < 2)
         return fail(AnalysisError{Code::RecordTooShort, requestError("the record has fewer than 2 samples")});
+    SegmentPlan plan;
     const double nyquist = fs / 2.0;
-    double fmax = r.fmaxHz.value_or(fs / 2.56);
-    if (!(fmax > 0) || !std::isfinite(fmax))
+    plan.fmax = r.fmaxHz.value_or(fs / 2.56);
+    if (!(plan.fmax > 0) || !std::isfinite(plan.fmax))
         return fail(AnalysisError{Code::InvalidRequest, requestError("fmax must be > 0 Hz")});
-    fmax = std::min(fmax, nyquist);
+    plan.fmax = std::min(plan.fmax, nyquist);
 
-    auto segment = chooseSegmentLength(x.size(), fs, r, fmax);
+    auto segment = chooseSegmentLength(available, fs, r, plan.fmax);
     if (!segment) return fail(segment.error());
-    const std::size_t n = segment.value();
+    const std::size_t n = plan.n = segment.value();
     if (n < 2)
         return fail(AnalysisError{Code::InvalidRequest, requestError("the asked resolution is coarser than fs/2")});
-    const std::size_t step = std::max<std::size_t>(1, static_cast<std::size_t>(std::llround(static_cast<double>(n) * (1.0 - r.overlap))));
+    plan.step = std::max<std::size_t>(1, static_cast<std::size_t>(std::llround(static_cast<double>(n) * (1.0 - r.overlap))));
     const std::size_t wantedAverages = r.averages.value_or(0);
     if (r.averages && wantedAverages == 0)
         return fail(AnalysisError{Code::InvalidRequest, requestError("averages must be >= 1")});
-    const std::size_t needed = n + (std::max<std::size_t>(wantedAverages, 1) - 1) * step;
-    if (x.size() < needed) {
-        const double haveS = static_cast<double>(x.size()) / fs, needS = static_cast<double>(needed) / fs;
+    const std::size_t needed = n + (std::max<std::size_t>(wantedAverages, 1) - 1) * plan.step;
+    if (available < needed) {
+        const double haveS = static_cast<double>(available) / fs, needS = static_cast<double>(needed) / fs;
         char buf[256];
         std::snprintf(buf, sizeof buf,
                       "record too short for the requested resolution: %.4g Hz lines x %zu averages need %.4g s, the record has %.4g s",
                       fs / static_cast<double>(n), std::max<std::size_t>(wantedAverages, 1), needS, haveS);
         return fail(AnalysisError{Code::RecordTooShort, requestError(buf)});
     }
-    const std::size_t available = 1 + (x.size() - n) / step;
-    const std::size_t averages = r.averages ? wantedAverages : available;
+    plan.averages = r.averages ? wantedAverages : 1 + (available - n) / plan.step;
+    return plan;
+}
 
+// The lines up to fmax of the summed squared magnitudes `power` of `plan.averages` transforms.
+Spectrum assembleSpectrum(const std::vector<double>& power, double fs, const SegmentPlan& plan, const PreparedWindow& window,
+                          const SpectrumRequest& r) {
+    const std::size_t n = plan.n, bins = n / 2 + 1;
+    Spectrum s;
+    s.sampleRateHz = fs;
+    s.resolutionHz = fs / static_cast<double>(n);
+    s.enbwHz = fs * window.s2 / (window.s1 * window.s1);
+    s.segmentLength = n;
+    s.transformLength = n;
+    s.averages = plan.averages;
+    s.window = r.window;
+    s.scale = r.scale;
+    s.quantity = r.quantity;
+    const std::size_t lines = std::min(bins - 1, static_cast<std::size_t>(std::floor(plan.fmax / s.resolutionHz + 1e-9)));
+    s.values.resize(lines + 1);
+    const double inv = 1.0 / static_cast<double>(plan.averages);
+    for (std::size_t k = 0; k <= lines; ++k) {
+        const bool edge = k == 0 || (n % 2 == 0 && k == n / 2);
+        s.values[k] = scaleLine(power[k] * inv, edge, r.scale, window.s1, window.s2, fs);
+    }
+    return s;
+}
+
+std::size_t linesUpTo(double fmax, double fs, std::size_t n) {
+    return std::min(n / 2, static_cast<std::size_t>(std::floor(fmax / (fs / static_cast<double>(n)) + 1e-9)));
+}
+
+// |DFT((x - mean) w)[k]|^2 for k = 0 .. last, from the record's DFT X of x - mean (n points) by
+// the convolution theorem: DFT(x w)[k] = (1/n) sum_m W[m] X[k - m] (circular), with W the
+// window's DFT, which for a periodic cosine-sum window has 2K + 1 lines only (Harris 1978,
+// section 4). X of a real record is Hermitian: X[-j] = conj X[j], X[n - j] = conj X[j].
+std::vector<double> windowedPowerFromRecord(std::span<const std::complex<double>> x, std::size_t n,
+                                            std::span<const std::complex<double>> head, std::size_t last) {
+    const auto lineOf = [&](std::ptrdiff_t j) {
+        const auto nn = static_cast<std::ptrdiff_t>(n);
+        j %= nn;
+        if (j < 0) j += nn;
+        return j <= nn / 2 ? x[static_cast<std::size_t>(j)] : std::conj(x[static_cast<std::size_t>(nn - j)]);
+    };
+    const auto kCount = static_cast<std::ptrdiff_t>(head.size());
+    const double invN = 1.0 / static_cast<double>(n);
+    std::vector<double> power(last + 1);
+    for (std::size_t k = 0; k <= last; ++k) {
+        const auto kk = static_cast<std::ptrdiff_t>(k);
+        std::complex<double> y = head[0] * x[k];
+        if (kk >= kCount && kk + kCount <= static_cast<std::ptrdiff_t>(n / 2)) {
+            for (std::ptrdiff_t m = 1; m < kCount; ++m) {
+                const auto um = static_cast<std::size_t>(m);
+                y += head[um] * x[k - um] + std::conj(head[um]) * x[k + um];
+            }
+        } else {
+            for (std::ptrdiff_t m = 1; m < kCount; ++m) {
+                const auto um = static_cast<std::size_t>(m);
+                y += head[um] * lineOf(kk - m) + std::conj(head[um]) * lineOf(kk + m);
+            }
+        }
+        power[k] = std::norm(y * invN);
+    }
+    return power;
+}
+
+// Windows whose DFT this short are derived from the record's transform (cosine sums: Hann and
+// Hamming 2 lines, Blackman-Harris 4, flat top 5); others (Kaiser) are transformed directly.
+constexpr std::size_t kMaxDerivedWindowLines = 8;
+
+} // namespace
+
+Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, double fs, const SpectrumRequest& r) {
+    auto planned = planSegments(x.size(), fs, r);
+    if (!planned) return fail(planned.error());
+    const SegmentPlan& plan = planned.value();
+    const std::size_t n = plan.n;
     const auto prepared = preparedWindow(r.window, n);
     const std::vector<double>& w = *prepared->samples;
-    const double s1 = prepared->s1, s2 = prepared->s2;
     const auto& head = prepared->dftHead;
     RealFft<double> fft(n);
     const std::size_t bins = n / 2 + 1;
     std::vector<double> power(bins, 0.0);
     auto in = fft.input();
     const double invN = 1.0 / static_cast<double>(n);
-    for (std::size_t a = 0; a < averages; ++a) {
-        const double* seg = x.data() + a * step;
+    for (std::size_t a = 0; a < plan.averages; ++a) {
+        const double* seg = x.data() + a * plan.step;
         // Four partial sums break the serial dependency of one accumulator (about 4x faster).
         double part[4] = {0, 0, 0, 0};
         std::size_t i = 0;
@@ -177,25 +261,21 @@ Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, doub
         }
         for (std::size_t k = 0; k < bins; ++k) power[k] += std::norm(out[k]);
     }
+    return assembleSpectrum(power, fs, plan, *prepared, r);
+}
 
-    Spectrum s;
-    s.sampleRateHz = fs;
-    s.resolutionHz = fs / static_cast<double>(n);
-    s.enbwHz = fs * s2 / (s1 * s1);
-    s.segmentLength = n;
-    s.transformLength = n;
-    s.averages = averages;
-    s.window = r.window;
-    s.scale = r.scale;
-    s.quantity = r.quantity;
-    const std::size_t lines = std::min(bins - 1, static_cast<std::size_t>(std::floor(fmax / s.resolutionHz + 1e-9)));
-    s.values.resize(lines + 1);
-    const double inv = 1.0 / static_cast<double>(averages);
-    for (std::size_t k = 0; k <= lines; ++k) {
-        const bool edge = k == 0 || (n % 2 == 0 && k == n / 2);
-        s.values[k] = scaleLine(power[k] * inv, edge, r.scale, s1, s2, fs);
-    }
-    return s;
+Result<Spectrum, AnalysisError> averagedSpectrum(const RecordSpectrum& record, std::span<const double> x, const SpectrumRequest& r) {
+    const double fs = record.sampleRateHz();
+    if (x.size() != record.length())
+        return fail(AnalysisError{AnalysisError::Code::InvalidRequest, requestError("the record's transform is not of this record")});
+    auto planned = planSegments(x.size(), fs, r);
+    if (!planned) return fail(planned.error());
+    const SegmentPlan& plan = planned.value();
+    if (plan.averages != 1 || plan.n != record.length() || !r.removeMean) return averagedSpectrum(x, fs, r);
+    const auto prepared = preparedWindow(r.window, plan.n);
+    if (prepared->dftHead.size() > kMaxDerivedWindowLines) return averagedSpectrum(x, fs, r);
+    const auto power = windowedPowerFromRecord(record.bins(), plan.n, prepared->dftHead, linesUpTo(plan.fmax, fs, plan.n));
+    return assembleSpectrum(power, fs, plan, *prepared, r);
 }
 
 double lineMeanSquare(const Spectrum& s, std::size_t k) {

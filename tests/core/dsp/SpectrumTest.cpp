@@ -1,11 +1,13 @@
 // Averaged spectra: the scaling conventions of Spectrum.h pinned by small cases whose answers
 // are known (REFERENCE.md 1.5, computed there with scipy.signal from Heinzel et al. 2002
 // section 9 formulas), Parseval, and the record-length contract.
+#include "core/dsp/BandSignal.h"
 #include "core/dsp/Spectrum.h"
 #include "support/TestSupport.h"
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 
 namespace humwise::dsp {
@@ -146,6 +148,64 @@ TEST(Spectrum, DbUsesAmplitudeOrPowerRule) {
     EXPECT_NEAR(toDb(10.0, SpectrumScale::Rms, 1.0), 20.0, 1e-12);
     EXPECT_NEAR(toDb(10.0, SpectrumScale::Psd, 1.0), 10.0, 1e-12);
     EXPECT_TRUE(std::isinf(toDb(0.0, SpectrumScale::Rms, 1.0)));
+}
+
+// A whole-record spectrum derived from the record's transform (a short convolution with the
+// window's DFT, the convolution theorem) equals the one transformed directly: even and odd
+// lengths, tones on the first lines and next to Nyquist (where the convolution wraps), noise,
+// an offset (removed either way), every cosine-sum window.
+TEST(Spectrum, FromTheRecordTransformEqualsTheDirectOne) {
+    const double fs = 1000.0;
+    for (const std::size_t n : {4096u, 4095u}) {
+        auto x = test::sine(1.0, 1.3 * fs / static_cast<double>(n), fs, n, 0.4);
+        test::add(x, test::sine(0.2, fs / 2 - 1.7 * fs / static_cast<double>(n), fs, n, 1.2));
+        test::add(x, test::sine(0.05, 123.4, fs, n, 2.0));
+        test::add(x, test::gaussianNoise(1e-3, n, 11));
+        for (double& v : x) v += 0.7;
+        const RecordSpectrum record(x, fs);
+        for (const auto kind : {WindowKind::Rectangular, WindowKind::Hann, WindowKind::Hamming, WindowKind::BlackmanHarris,
+                                WindowKind::FlatTop}) {
+            for (const auto scale : {SpectrumScale::Rms, SpectrumScale::Psd}) {
+                SpectrumRequest r = oneSegment(kind, scale, n, fs);
+                r.averages.reset(); // as an analysis asks: lines of the record length, as many segments as fit (one)
+                const auto direct = averagedSpectrum(x, fs, r);
+                const auto derived = averagedSpectrum(record, x, r);
+                ASSERT_TRUE(direct.ok() && derived.ok());
+                const auto& a = direct.value().values;
+                const auto& b = derived.value().values;
+                ASSERT_EQ(a.size(), b.size());
+                const double largest = *std::max_element(a.begin(), a.end());
+                for (std::size_t k = 0; k < a.size(); ++k)
+                    ASSERT_NEAR(b[k], a[k], 1e-12 * largest) << "n " << n << ", window " << windowName({kind}) << ", line " << k;
+                EXPECT_EQ(derived.value().enbwHz, direct.value().enbwHz);
+                EXPECT_EQ(derived.value().averages, 1u);
+            }
+        }
+    }
+}
+
+// Where nothing can be derived (several segments, the mean kept, a Kaiser window whose DFT has
+// no short head) the record's transform is not used: the very same numbers as the direct path.
+TEST(Spectrum, FromTheRecordTransformFallsBackWhereItCannotDerive) {
+    const double fs = 1000.0;
+    const std::size_t n = 4000;
+    auto x = test::sine(1.0, 50.0, fs, n);
+    test::add(x, test::gaussianNoise(0.01, n, 5));
+    const RecordSpectrum record(x, fs);
+    SpectrumRequest segments; // 1 Hz lines: seven 1000-sample segments
+    segments.resolutionHz = 1.0;
+    SpectrumRequest meanKept = oneSegment(WindowKind::Hann, SpectrumScale::Rms, n, fs);
+    meanKept.removeMean = false;
+    SpectrumRequest kaiser = oneSegment(WindowKind::Kaiser, SpectrumScale::Rms, n, fs);
+    for (const auto& r : {segments, meanKept, kaiser}) {
+        const auto direct = averagedSpectrum(x, fs, r);
+        const auto derived = averagedSpectrum(record, x, r);
+        ASSERT_TRUE(direct.ok() && derived.ok());
+        EXPECT_EQ(derived.value().values, direct.value().values);
+        EXPECT_EQ(derived.value().averages, direct.value().averages);
+    }
+    const std::vector<double> shorter(x.begin(), x.end() - 1);
+    EXPECT_EQ(averagedSpectrum(record, shorter, segments).error().code, AnalysisError::Code::InvalidRequest);
 }
 
 } // namespace
