@@ -3,13 +3,15 @@
 // that its peak resident memory (wait4, ru_maxrss) is its own:
 //   floor    read every file with the core reader + one bare real FFT of every channel;
 //   storage  the raw files alone written into a fresh store in one transaction (no analysis);
+//   alone    the analysis alone: every file read and parsed, analyseMotor per motor, no store,
+//            1 thread, then 2;
 //   import   importWalkdown into a fresh store, 1 analysis thread, then 2 threads;
 //   stages   where the analysis time of one motor goes (velocity spectrum, envelope, current);
 //   scipy    bench/route_pipeline.py, the same analysis scripted with numpy/scipy.
 // Figures only, never assertions (bench/README.md, "Route-scale import").
 //
 // Usage: bench_route [--dir WORKDIR] [--motors N] [--python PYTHON] [--script route_pipeline.py]
-//                    [--keep] [--skip-python] [--repeat N]   (N runs of the floor and imports, median; 3)
+//                    [--keep] [--skip-python] [--repeat N]   (N runs of the floors, analyses and imports, median; 3)
 
 #include "app/common/MotorAnalysis.h"
 #include "app/common/Walkdown.h"
@@ -38,6 +40,7 @@
 #include <unistd.h>
 
 #include <algorithm>
+#include <atomic>
 #include <array>
 #include <chrono>
 #include <cstdio>
@@ -49,10 +52,12 @@
 #include <iomanip>
 #include <iostream>
 #include <map>
+#include <mutex>
 #include <optional>
 #include <sstream>
 #include <stdexcept>
 #include <string>
+#include <thread>
 #include <vector>
 
 namespace fs = std::filesystem;
@@ -480,6 +485,40 @@ diagnosis::VibrationInput vibrationInput(const workflow::PointRecording& r) {
     return v;
 }
 
+// ---- Phase b': the analysis alone ------------------------------------------------------------
+
+// The import's analysis without the store: every motor's files read and parsed, then
+// analyseMotor, on `threads` threads (a motor each at a time); no hashing, quality checks,
+// storage or commit. With one thread this is the work the scipy script does, on one core.
+void runAnalysisAlone(const fs::path& dir, unsigned threads, const Reporter& report) {
+    const auto fleet = io::readFleetFile(dir / "fleet.json");
+    if (!fleet) throw std::runtime_error(fleet.error().message());
+    const auto& motors = fleet.value().motors;
+    std::atomic<std::size_t> next{0}, findings{0};
+    std::exception_ptr failure;
+    std::mutex failureMutex;
+    const auto t0 = Clock::now();
+    const auto work = [&] {
+        try {
+            for (std::size_t i = next++; i < motors.size(); i = next++) {
+                std::vector<workflow::PointRecording> recs;
+                for (const auto& p : motors[i].points) recs.push_back(loadPoint(dir / "walkdown", motors[i], p));
+                findings += workflow::analyseMotor(motors[i], recs).result.findings.size();
+            }
+        } catch (...) {
+            std::lock_guard lock(failureMutex);
+            failure = std::current_exception();
+        }
+    };
+    std::vector<std::thread> pool;
+    for (unsigned t = 1; t < threads; ++t) pool.emplace_back(work);
+    work();
+    for (auto& t : pool) t.join();
+    if (failure) std::rethrow_exception(failure);
+    report("total_s", secondsSince(t0));
+    report("findings", static_cast<double>(findings.load()));
+}
+
 // Median of `reps` timings of f.
 double medianTime(int reps, const std::function<void()>& f) {
     std::vector<double> t;
@@ -626,7 +665,7 @@ PhaseResult medianRun(std::vector<PhaseResult> runs, const std::string& key) {
 }
 
 struct Figures {
-    PhaseResult gen, floor, storeFloor, t1, t2, stages;
+    PhaseResult gen, floor, storeFloor, alone1, alone2, t1, t2, stages;
     std::optional<PhaseResult> scipy;
     std::string scipySkipped;
 };
@@ -651,7 +690,7 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     std::cout << "largest single recording in memory (doubles): " << mib(largest) << "; memory target 2 x that + 200 MiB = "
               << mib(2 * largest + 200.0 * 1024 * 1024) << "\n";
     std::cout << "bench parent RSS at fork (a floor under every child's peak): " << std::fixed << std::setprecision(1) << parentRssMiB << " MiB\n\n";
-    std::cout << "floor and imports: median of " << f.floor.runs << " interleaved runs each (peak memory: the largest)\n\n";
+    std::cout << "floors, analyses and imports: median of " << f.floor.runs << " interleaved runs each (peak memory: the largest)\n\n";
     std::cout << "| phase                                        |   wall s |  ratio            | peak MiB | notes\n";
     std::cout << "|---|---:|---:|---:|---|\n";
     printRow("generate fleet + walkdown (set-up)", f.gen.wallS, 0, "", f.gen.maxRssMiB);
@@ -662,6 +701,11 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     printRow("storage floor: raw files into a store, no analysis", storeS, storeS / floorS, "x floor", f.storeFloor.maxRssMiB,
              "commit (WAL checkpoint) " + std::to_string(f.storeFloor.values.at("commit_s")).substr(0, 5) + " s; db " +
                  mib(f.storeFloor.values.at("db_bytes")));
+    for (const auto* r : {&f.alone1, &f.alone2}) {
+        const double t = r->values.at("total_s");
+        printRow(std::string("analysis alone (read + analyse, no store), threads = ") + (r == &f.alone1 ? "1" : "2"), t, t / floorS, "x floor",
+                 r->maxRssMiB, "findings " + std::to_string(static_cast<long>(r->values.at("findings"))));
+    }
     printImportRow("import, threads = 1 (target <= 3x floor)", f.t1, floorS, largest);
     printImportRow("import, threads = 2", f.t2, floorS, largest);
     for (const auto* r : {&f.t1, &f.t2})
@@ -677,10 +721,10 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     if (f.scipy) {
         printRow("scipy pipeline, one thread", f.scipy->wallS, f.scipy->wallS / t1, "x import1", f.scipy->maxRssMiB,
                  "vs 2 threads: " + std::to_string(f.scipy->wallS / f.t2.values.at("import_s")).substr(0, 5) + "x (target >= 10x)");
-        // The same work on one core each: reading and parsing every file plus analyseMotor for every
-        // motor (no hashing, checks, storage or second read), against the whole script.
-        const double sameWork = f.floor.values.at("read_s") + f.stages.values.at("motor_s") * o.motors;
-        std::cout << "  same work, one core each: read + analyse " << std::setprecision(2) << sameWork << " s -> scipy is " << f.scipy->wallS / sameWork
+        // The same work on one core each: the analysis alone on one thread (every file read and
+        // parsed, analyseMotor for every motor; no hashing, checks or storage), against the script.
+        const double sameWork = f.alone1.values.at("total_s");
+        std::cout << "  same work, one core each: analysis alone " << std::setprecision(2) << sameWork << " s -> scipy is " << f.scipy->wallS / sameWork
                   << "x slower; a tenth of scipy's time (" << f.scipy->wallS / 10 << " s) is " << (f.scipy->wallS / 10 < floorS ? "below" : "above")
                   << " the floor (" << floorS << " s)\n";
     } else {
@@ -698,8 +742,8 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
               << " ms and zoom " << 1e3 * s.at("cur_zoom_s") << " ms; wide spectrum "
               << 1e3 * s.at("cur_wide_s") << " ms, 3 phasors " << 1e3 * s.at("cur_phasors_s") << " ms, harmonics " << 1e3 * s.at("cur_harmonics_s")
               << " ms\n";
-    std::cout << "  import (1 thread) not spent in analyseMotor: ~" << std::setprecision(2) << t1 - s.at("motor_s") * o.motors
-              << " s (reading, hashing and storing files, writing products)\n";
+    std::cout << "  import (1 thread) beyond the analysis alone: " << std::setprecision(2) << t1 - f.alone1.values.at("total_s")
+              << " s (hashing, checking and storing files, writing products, the commit)\n";
 }
 
 Figures measure(const Options& o) {
@@ -713,7 +757,7 @@ Figures measure(const Options& o) {
     // The floor and both imports, interleaved, `repeat` times: each figure is the run of median
     // time (a shared virtual machine's page cache and neighbours move single runs by +-30 %), its
     // peak memory the largest of all runs.
-    std::vector<PhaseResult> floors{f.floor}, storeFloors, ones, twos;
+    std::vector<PhaseResult> floors{f.floor}, storeFloors, alones1, alones2, ones, twos;
     for (int rep = 0; rep < o.repeat; ++rep) {
         if (rep > 0) {
             floors.push_back(runInChild([&](const Reporter& r) { runFloor(o.dir / "walkdown", r); }));
@@ -723,6 +767,12 @@ Figures measure(const Options& o) {
         storeFloors.push_back(runInChild([&](const Reporter& r) { runStoreFloor(o.dir, r); }));
         require(storeFloors.back(), "storage floor");
         for (unsigned threads : {1u, 2u}) {
+            std::cout << "analysis alone, " << threads << " thread(s), run " << rep + 1 << " of " << o.repeat << " ...\n";
+            auto r = runInChild([&](const Reporter& rr) { runAnalysisAlone(o.dir, threads, rr); });
+            require(r, "analysis alone");
+            (threads == 1 ? alones1 : alones2).push_back(r);
+        }
+        for (unsigned threads : {1u, 2u}) {
             std::cout << "import, " << threads << " thread(s), run " << rep + 1 << " of " << o.repeat << " ...\n";
             auto r = runInChild([&](const Reporter& rr) { runImport(o.dir, threads, rr); });
             require(r, "import");
@@ -731,6 +781,8 @@ Figures measure(const Options& o) {
     }
     f.floor = medianRun(floors, "total_s");
     f.storeFloor = medianRun(storeFloors, "total_s");
+    f.alone1 = medianRun(alones1, "total_s");
+    f.alone2 = medianRun(alones2, "total_s");
     f.t1 = medianRun(ones, "import_s");
     f.t2 = medianRun(twos, "import_s");
     std::cout << "stages of one motor ...\n";
