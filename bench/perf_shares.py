@@ -20,7 +20,8 @@ import re
 import sys
 
 STAGES = [
-    "fastKurtogram", "envelopeSpectrum", "harmonicAnalysis", "phasorAt", "zoomSpectrum",
+    "fastKurtogram", "envelopeSpectrum", "harmonicAnalysis", "phasorAt", "zoomSpectrum", "ZoomTransform::of",
+    "ZoomTransform::band", "RecordSpectrum::RecordSpectrum",
     "estimateSupplyFrequency", "averagedSpectrum", "findPeaks", "assessQuality",
     "waveformStatistics", "analyseVibration", "analysePhaseSet",
 ]
