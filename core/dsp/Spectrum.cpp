@@ -223,6 +223,12 @@ std::vector<double> windowedPowerFromRecord(std::span<const std::complex<double>
 // Hamming 2 lines, Blackman-Harris 4, flat top 5); others (Kaiser) are transformed directly.
 constexpr std::size_t kMaxDerivedWindowLines = 8;
 
+// The convolution needs the window's lines -(K-1) .. K-1 to be distinct lines of the n-point
+// DFT (2K - 1 <= n); on shorter records, or windows with longer DFTs, the direct transform.
+bool derivable(std::size_t headLines, std::size_t n) {
+    return headLines <= kMaxDerivedWindowLines && 2 * headLines - 1 <= n;
+}
+
 } // namespace
 
 Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, double fs, const SpectrumRequest& r) {
@@ -273,7 +279,7 @@ Result<Spectrum, AnalysisError> averagedSpectrum(const RecordSpectrum& record, s
     const SegmentPlan& plan = planned.value();
     if (plan.averages != 1 || plan.n != record.length() || !r.removeMean) return averagedSpectrum(x, fs, r);
     const auto prepared = preparedWindow(r.window, plan.n);
-    if (prepared->dftHead.size() > kMaxDerivedWindowLines) return averagedSpectrum(x, fs, r);
+    if (!derivable(prepared->dftHead.size(), plan.n)) return averagedSpectrum(x, fs, r);
     const auto power = windowedPowerFromRecord(record.bins(), plan.n, prepared->dftHead, linesUpTo(plan.fmax, fs, plan.n));
     return assembleSpectrum(power, fs, plan, *prepared, r);
 }

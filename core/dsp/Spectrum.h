@@ -74,7 +74,8 @@ class RecordSpectrum; // BandSignal.h: the DFT of a whole record, mean removed
 // The same spectrum, derived from `record` (the transform of `x`) without transforming again when
 // the request is one segment of the whole record, mean removed, with a cosine-sum window (its DFT
 // has a few lines only: the windowed lines are a short convolution of the record's); otherwise
-// computed from `x` as above. Equal to the above to rounding (about 1e-15 of the largest line).
+// computed from `x` as above. Equal to the above to rounding (tests: within 1e-12 of the largest
+// line).
 [[nodiscard]] Result<Spectrum, AnalysisError> averagedSpectrum(const RecordSpectrum& record, std::span<const double> x,
                                                                 const SpectrumRequest& request);
 
