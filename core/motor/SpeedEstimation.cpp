@@ -52,6 +52,7 @@ std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const dou
 
 std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const double> current, const dsp::ZoomTransform& zoom,
                                                              double nominalHz, bool driveFed) {
+    if (current.size() != zoom.recordLength()) return std::nullopt; // not this record's transform
     const double fs = zoom.sampleRateHz();
     double centre = nominalHz;
     double span = std::min(10.0, nominalHz);
