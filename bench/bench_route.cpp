@@ -495,7 +495,7 @@ void runAnalysisAlone(const fs::path& dir, unsigned threads, const Reporter& rep
     if (!fleet) throw std::runtime_error(fleet.error().message());
     const auto& motors = fleet.value().motors;
     std::atomic<std::size_t> next{0}, findings{0};
-    std::exception_ptr failure;
+    std::exception_ptr failure; // the first one; the others stop taking motors
     std::mutex failureMutex;
     const auto t0 = Clock::now();
     const auto work = [&] {
@@ -506,14 +506,16 @@ void runAnalysisAlone(const fs::path& dir, unsigned threads, const Reporter& rep
                 findings += workflow::analyseMotor(motors[i], recs).result.findings.size();
             }
         } catch (...) {
+            next = motors.size();
             std::lock_guard lock(failureMutex);
-            failure = std::current_exception();
+            if (!failure) failure = std::current_exception();
         }
     };
-    std::vector<std::thread> pool;
-    for (unsigned t = 1; t < threads; ++t) pool.emplace_back(work);
-    work();
-    for (auto& t : pool) t.join();
+    {
+        std::vector<std::jthread> pool; // joined when it goes, also if starting one throws
+        for (unsigned t = 1; t < threads; ++t) pool.emplace_back(work);
+        work();
+    }
     if (failure) std::rethrow_exception(failure);
     report("total_s", secondsSince(t0));
     report("findings", static_cast<double>(findings.load()));
