@@ -157,10 +157,15 @@ Result<SegmentPlan, AnalysisError> planSegments(std::size_t available, double fs
     return plan;
 }
 
+// The index of the last line at or below fmax of an n-point transform.
+std::size_t linesUpTo(double fmax, double fs, std::size_t n) {
+    return std::min(n / 2, static_cast<std::size_t>(std::floor(fmax / (fs / static_cast<double>(n)) + 1e-9)));
+}
+
 // The lines up to fmax of the summed squared magnitudes `power` of `plan.averages` transforms.
 Spectrum assembleSpectrum(const std::vector<double>& power, double fs, const SegmentPlan& plan, const PreparedWindow& window,
                           const SpectrumRequest& r) {
-    const std::size_t n = plan.n, bins = n / 2 + 1;
+    const std::size_t n = plan.n;
     Spectrum s;
     s.sampleRateHz = fs;
     s.resolutionHz = fs / static_cast<double>(n);
@@ -171,7 +176,7 @@ Spectrum assembleSpectrum(const std::vector<double>& power, double fs, const Seg
     s.window = r.window;
     s.scale = r.scale;
     s.quantity = r.quantity;
-    const std::size_t lines = std::min(bins - 1, static_cast<std::size_t>(std::floor(plan.fmax / s.resolutionHz + 1e-9)));
+    const std::size_t lines = linesUpTo(plan.fmax, fs, n);
     s.values.resize(lines + 1);
     const double inv = 1.0 / static_cast<double>(plan.averages);
     for (std::size_t k = 0; k <= lines; ++k) {
@@ -181,14 +186,12 @@ Spectrum assembleSpectrum(const std::vector<double>& power, double fs, const Seg
     return s;
 }
 
-std::size_t linesUpTo(double fmax, double fs, std::size_t n) {
-    return std::min(n / 2, static_cast<std::size_t>(std::floor(fmax / (fs / static_cast<double>(n)) + 1e-9)));
-}
-
 // |DFT((x - mean) w)[k]|^2 for k = 0 .. last, from the record's DFT X of x - mean (n points) by
-// the convolution theorem: DFT(x w)[k] = (1/n) sum_m W[m] X[k - m] (circular), with W the
-// window's DFT, which for a periodic cosine-sum window has 2K + 1 lines only (Harris 1978,
-// section 4). X of a real record is Hermitian: X[-j] = conj X[j], X[n - j] = conj X[j].
+// the DFT's circular convolution property: DFT(x w)[k] = (1/n) sum_m W[m] X[k - m], with W the
+// window's DFT, which for a periodic cosine-sum window of K terms has the 2K - 1 lines
+// -(K-1) .. K-1 only (`head` holds W[0] .. W[K-1]; W[-m] = conj W[m]; Harris 1978 writes these
+// windows' transforms as such sums of shifted kernels). X of a real record is Hermitian:
+// X[-j] = conj X[j], X[n - j] = conj X[j].
 std::vector<double> windowedPowerFromRecord(std::span<const std::complex<double>> x, std::size_t n,
                                             std::span<const std::complex<double>> head, std::size_t last) {
     const auto lineOf = [&](std::ptrdiff_t j) {
