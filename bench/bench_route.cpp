@@ -3,6 +3,7 @@
 // that its peak resident memory (wait4, ru_maxrss) is its own:
 //   floor    read every file with the core reader + one bare real FFT of every channel;
 //   storage  the raw files alone written into a fresh store in one transaction (no analysis);
+//            for comparison, the same files written as files of their own and synced;
 //   alone    the analysis alone: every file read and parsed, analyseMotor per motor, no store,
 //            1 thread, then 2;
 //   import   importWalkdown into a fresh store, 1 analysis thread, then 2 threads;
@@ -35,6 +36,7 @@
 #include "storage/Database.h"
 #include "storage/FleetStore.h"
 
+#include <fcntl.h>
 #include <sys/resource.h>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -415,6 +417,50 @@ void runStoreFloor(const fs::path& dir, const Reporter& report) {
     removeStore(db);
 }
 
+// The same raw files kept outside any database instead, as a design without them in the store
+// would keep them: each written to a file of its own, then every file and the folder synced
+// (fsync: what a commit would have to wait for before the database may point at them). What
+// the storage floor would come down to, for comparison only: the import does not do this.
+void runFilesFloor(const fs::path& dir, const Reporter& report) {
+    const auto files = manifestFiles(dir / "walkdown");
+    const fs::path raw = dir / "raw-floor";
+    fs::remove_all(raw);
+    fs::create_directories(raw);
+    const auto t0 = Clock::now();
+    std::vector<fs::path> written;
+    for (std::size_t i = 0; i < files.size(); ++i) {
+        auto bytes = io::readFileBytes(files[i].path);
+        if (!bytes) throw std::runtime_error(bytes.error().message());
+        const auto path = raw / std::to_string(i);
+        const int fd = ::open(path.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
+        if (fd < 0) throw std::runtime_error(path.string() + ": cannot create");
+        const auto* p = reinterpret_cast<const char*>(bytes.value().data());
+        for (std::size_t left = bytes.value().size(); left > 0;) {
+            const ssize_t n = ::write(fd, p, left);
+            if (n <= 0) {
+                ::close(fd);
+                throw std::runtime_error(path.string() + ": write failed");
+            }
+            p += n;
+            left -= static_cast<std::size_t>(n);
+        }
+        ::close(fd);
+        written.push_back(path);
+    }
+    // All written first, then synced (the system writes them out together); the folder last.
+    const auto t = Clock::now();
+    written.push_back(raw);
+    for (const auto& path : written) {
+        const int fd = ::open(path.c_str(), O_RDONLY | O_CLOEXEC);
+        const bool synced = fd >= 0 && ::fsync(fd) == 0;
+        if (fd >= 0) ::close(fd);
+        if (!synced) throw std::runtime_error(path.string() + ": cannot sync");
+    }
+    report("sync_s", secondsSince(t));
+    report("total_s", secondsSince(t0));
+    fs::remove_all(raw);
+}
+
 // ---- Phase b: the import -----------------------------------------------------------------
 
 void storeFleet(storage::FleetStore& store, const fs::path& fleetFile) {
@@ -667,7 +713,7 @@ PhaseResult medianRun(std::vector<PhaseResult> runs, const std::string& key) {
 }
 
 struct Figures {
-    PhaseResult gen, floor, storeFloor, alone1, alone2, t1, t2, stages;
+    PhaseResult gen, floor, storeFloor, filesFloor, alone1, alone2, t1, t2, stages;
     std::optional<PhaseResult> scipy;
     std::string scipySkipped;
 };
@@ -703,6 +749,9 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
     printRow("storage floor: raw files into a store, no analysis", storeS, storeS / floorS, "x floor", f.storeFloor.maxRssMiB,
              "commit (WAL checkpoint) " + std::to_string(f.storeFloor.values.at("commit_s")).substr(0, 5) + " s; db " +
                  mib(f.storeFloor.values.at("db_bytes")));
+    const double filesS = f.filesFloor.values.at("total_s");
+    printRow("  for comparison: the raw files as files of their own, synced", filesS, filesS / floorS, "x floor", f.filesFloor.maxRssMiB,
+             "fsync of the files and folder " + std::to_string(f.filesFloor.values.at("sync_s")).substr(0, 5) + " s");
     for (const auto* r : {&f.alone1, &f.alone2}) {
         const double t = r->values.at("total_s");
         printRow(std::string("analysis alone (read + analyse, no store), threads = ") + (r == &f.alone1 ? "1" : "2"), t, t / floorS, "x floor",
@@ -759,7 +808,7 @@ Figures measure(const Options& o) {
     // The floor and both imports, interleaved, `repeat` times: each figure is the run of median
     // time (a shared virtual machine's page cache and neighbours move single runs by +-30 %), its
     // peak memory the largest of all runs.
-    std::vector<PhaseResult> floors{f.floor}, storeFloors, alones1, alones2, ones, twos;
+    std::vector<PhaseResult> floors{f.floor}, storeFloors, filesFloors, alones1, alones2, ones, twos;
     for (int rep = 0; rep < o.repeat; ++rep) {
         if (rep > 0) {
             floors.push_back(runInChild([&](const Reporter& r) { runFloor(o.dir / "walkdown", r); }));
@@ -768,6 +817,8 @@ Figures measure(const Options& o) {
         std::cout << "storage floor, run " << rep + 1 << " of " << o.repeat << " ...\n";
         storeFloors.push_back(runInChild([&](const Reporter& r) { runStoreFloor(o.dir, r); }));
         require(storeFloors.back(), "storage floor");
+        filesFloors.push_back(runInChild([&](const Reporter& r) { runFilesFloor(o.dir, r); }));
+        require(filesFloors.back(), "files floor");
         for (unsigned threads : {1u, 2u}) {
             std::cout << "analysis alone, " << threads << " thread(s), run " << rep + 1 << " of " << o.repeat << " ...\n";
             auto r = runInChild([&](const Reporter& rr) { runAnalysisAlone(o.dir, threads, rr); });
@@ -783,6 +834,7 @@ Figures measure(const Options& o) {
     }
     f.floor = medianRun(floors, "total_s");
     f.storeFloor = medianRun(storeFloors, "total_s");
+    f.filesFloor = medianRun(filesFloors, "total_s");
     f.alone1 = medianRun(alones1, "total_s");
     f.alone2 = medianRun(alones2, "total_s");
     f.t1 = medianRun(ones, "import_s");
