@@ -232,16 +232,11 @@ bool derivable(std::size_t headLines, std::size_t n) {
     return headLines <= kMaxDerivedWindowLines && 2 * headLines - 1 <= n;
 }
 
-} // namespace
-
-Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, double fs, const SpectrumRequest& r) {
-    auto planned = planSegments(x.size(), fs, r);
-    if (!planned) return fail(planned.error());
-    const SegmentPlan& plan = planned.value();
+// The summed squared magnitudes of the planned segments' windowed transforms, all bins.
+std::vector<double> segmentPower(std::span<const double> x, const SegmentPlan& plan, const PreparedWindow& window, bool removeMean) {
     const std::size_t n = plan.n;
-    const auto prepared = preparedWindow(r.window, n);
-    const std::vector<double>& w = *prepared->samples;
-    const auto& head = prepared->dftHead;
+    const std::vector<double>& w = *window.samples;
+    const auto& head = window.dftHead;
     RealFft<double> fft(n);
     const std::size_t bins = n / 2 + 1;
     std::vector<double> power(bins, 0.0);
@@ -264,13 +259,23 @@ Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, doub
         const double sum = (part[0] + part[1]) + (part[2] + part[3]);
         fft.execute();
         auto out = fft.output();
-        if (r.removeMean) {
+        if (removeMean) {
             const double mean = sum * invN;
             for (std::size_t k = 0; k < head.size() && k < bins; ++k) out[k] -= mean * head[k];
         }
         for (std::size_t k = 0; k < bins; ++k) power[k] += std::norm(out[k]);
     }
-    return assembleSpectrum(power, fs, plan, *prepared, r);
+    return power;
+}
+
+} // namespace
+
+Result<Spectrum, AnalysisError> averagedSpectrum(std::span<const double> x, double fs, const SpectrumRequest& r) {
+    auto planned = planSegments(x.size(), fs, r);
+    if (!planned) return fail(planned.error());
+    const SegmentPlan& plan = planned.value();
+    const auto prepared = preparedWindow(r.window, plan.n);
+    return assembleSpectrum(segmentPower(x, plan, *prepared, r.removeMean), fs, plan, *prepared, r);
 }
 
 Result<Spectrum, AnalysisError> averagedSpectrum(const RecordSpectrum& record, std::span<const double> x, const SpectrumRequest& r) {
@@ -280,10 +285,10 @@ Result<Spectrum, AnalysisError> averagedSpectrum(const RecordSpectrum& record, s
     auto planned = planSegments(x.size(), fs, r);
     if (!planned) return fail(planned.error());
     const SegmentPlan& plan = planned.value();
-    if (plan.averages != 1 || plan.n != record.length() || !r.removeMean) return averagedSpectrum(x, fs, r);
     const auto prepared = preparedWindow(r.window, plan.n);
-    if (!derivable(prepared->dftHead.size(), plan.n)) return averagedSpectrum(x, fs, r);
-    const auto power = windowedPowerFromRecord(record.bins(), plan.n, prepared->dftHead, linesUpTo(plan.fmax, fs, plan.n));
+    const bool derive = plan.averages == 1 && plan.n == record.length() && r.removeMean && derivable(prepared->dftHead.size(), plan.n);
+    const auto power = derive ? windowedPowerFromRecord(record.bins(), plan.n, prepared->dftHead, linesUpTo(plan.fmax, fs, plan.n))
+                              : segmentPower(x, plan, *prepared, r.removeMean);
     return assembleSpectrum(power, fs, plan, *prepared, r);
 }
 
