@@ -54,7 +54,7 @@ public:
     StorageError error(int rc, const std::string& what) const {
         const char* detail = m_db ? sqlite3_errmsg(m_db) : sqlite3_errstr(rc);
         const Code code = codeForSqlite(rc);
-        return {code, m_path.string() + ": " + what + ": " + (detail ? detail : sqlite3_errstr(rc)) + adviceFor(code), rc};
+        return {code, m_path.string() + ": " + what + ": " + (detail ? detail : sqlite3_errstr(rc)) + adviceFor(rc, code), rc};
     }
 
     // Runs one statement (SQL text of this file only, no parameters) and returns the first

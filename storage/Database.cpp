@@ -22,7 +22,10 @@ StorageError::Code codeForSqlite(int rc) {
     }
 }
 
-const char* adviceFor(StorageError::Code code) {
+const char* adviceFor(int rc, StorageError::Code code) {
+    if (rc == SQLITE_READONLY_ROLLBACK)
+        return " (a write that was interrupted left its journal beside the database; open it once for writing, with the workbench or a "
+               "humwise-cli command that writes, and SQLite rolls the interrupted write back)";
     switch (code) {
     case StorageError::Code::Busy: return " (the database is locked by another process that is writing to it; try again when it is done)";
     default: return "";
@@ -98,7 +101,7 @@ StorageError Database::errorFrom(int rc, std::string_view what) const {
     e.code = codeForSqlite(rc);
     e.sqliteCode = rc;
     const char* detail = m_db ? sqlite3_errmsg(m_db) : sqlite3_errstr(rc);
-    e.message = m_path.string() + ": " + std::string(what) + ": " + (detail ? detail : sqlite3_errstr(rc)) + adviceFor(e.code);
+    e.message = m_path.string() + ": " + std::string(what) + ": " + (detail ? detail : sqlite3_errstr(rc)) + adviceFor(rc, e.code);
     return e;
 }
 
@@ -113,6 +116,17 @@ void Database::execute(std::string_view sql) {
     auto s = prepare(sql);
     s.run();
 }
+
+namespace {
+// Runs a journal_mode pragma; SQLite answers with the mode in force afterwards (the old one when
+// a change was refused, or an error such as SQLITE_BUSY).
+std::string journalModePragma(Database& db, const char* sql) {
+    auto s = db.prepare(sql);
+    return s.step() ? s.text(0) : std::string();
+}
+} // namespace
+
+std::string Database::journalMode() { return journalModePragma(*this, "PRAGMA journal_mode"); }
 
 std::int64_t Database::lastInsertId() const { return sqlite3_last_insert_rowid(m_db); }
 int Database::changes() const { return sqlite3_changes(m_db); }
@@ -200,6 +214,28 @@ Transaction::~Transaction() {
 void Transaction::commit() {
     m_db.execute("COMMIT");
     m_done = true;
+}
+
+SoleWriterJournal::SoleWriterJournal(Database& db) : m_db(db) {
+    try {
+        if (journalModePragma(m_db, "PRAGMA journal_mode = DELETE") != "delete") return;
+        m_taken = true;
+        m_db.execute("PRAGMA synchronous = FULL");
+    } catch (const StorageException& e) {
+        // Busy: another connection has the store open; the log stays and readers carry on.
+        if (e.error.code != StorageError::Code::Busy) throw;
+    }
+}
+
+SoleWriterJournal::~SoleWriterJournal() {
+    if (!m_taken) return;
+    try {
+        journalModePragma(m_db, "PRAGMA journal_mode = WAL");
+        m_db.execute("PRAGMA synchronous = NORMAL");
+    } catch (...) {
+        // Still a rollback journal (e.g. a connection opened meanwhile holds a read lock):
+        // correct, only without concurrent readers; the next open for writing restores the log.
+    }
 }
 
 } // namespace humwise::storage

@@ -42,6 +42,8 @@ public:
     void execute(std::string_view sql);       // statements without parameters or results (DDL, PRAGMA)
     std::int64_t lastInsertId() const;
     int changes() const;
+    // The connection's journal mode as SQLite names it ("wal", "delete", ...).
+    std::string journalMode();
     sqlite3* handle() { return m_db; }
 
     // The SQLite error of the connection as a StorageError naming the database.
@@ -103,6 +105,39 @@ public:
 private:
     Database& m_db;
     bool m_done = false;
+};
+
+// A rollback journal instead of the write-ahead log for one large write on a store that no
+// other connection has open; taken before the transaction begins, given back after it ends.
+//
+// Why: in WAL mode every page a transaction writes goes into the log, and again into the
+// database file at the checkpoint that follows a large commit. With a rollback journal, pages
+// past the end of the file at the start of the transaction (and free-list leaves) are written
+// once, straight into the file; only pages that held data are first copied into the journal
+// (SQLite source, doc/pager-invariants.txt: "overwriteable" pages). SQLite's own advice: WAL
+// "does not work well for very large transactions"; beyond about 100 MB a rollback journal is
+// likely faster (https://www.sqlite.org/wal.html, "Performance Considerations"). A walkdown's
+// import appends hundreds of megabytes of raw files: measured in bench/README.md.
+//
+// The price: while the transaction runs, no other connection can read (they wait for their
+// busy timeout, then fail as "locked"). So the switch is made only when SQLite grants it, which
+// is when no other connection has the store open; otherwise taken() is false and the write
+// goes through the log as usual, readers carrying on. Synchronous FULL while it lasts (the
+// rollback journal's setting for durability across power loss; https://www.sqlite.org/
+// pragma.html#pragma_synchronous). If the process dies inside the transaction, the journal
+// left beside the store is rolled back by the next connection that opens it for writing, which
+// also puts the log back (Database's constructor); a read-only connection cannot, and says so.
+class SoleWriterJournal {
+public:
+    explicit SoleWriterJournal(Database& db); // never throws for a store in use: taken() is false
+    ~SoleWriterJournal();                     // the log and synchronous NORMAL again; never throws
+    SoleWriterJournal(const SoleWriterJournal&) = delete;
+    SoleWriterJournal& operator=(const SoleWriterJournal&) = delete;
+    bool taken() const { return m_taken; }
+
+private:
+    Database& m_db;
+    bool m_taken = false;
 };
 
 } // namespace humwise::storage

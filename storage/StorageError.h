@@ -29,9 +29,9 @@ const char* codeName(StorageError::Code code);
 // SQLite's result code (primary or extended) as ours.
 StorageError::Code codeForSqlite(int resultCode);
 
-// What the user can do about an error of that code, appended to its message ("" when nothing
-// useful can be said).
-const char* adviceFor(StorageError::Code code);
+// What the user can do about an error, from SQLite's result code (primary or extended) and its
+// code here; appended to its message ("" when nothing useful can be said).
+const char* adviceFor(int resultCode, StorageError::Code code);
 
 // Thrown by the low-level wrappers; repositories catch it at their boundary and return it as a
 // value in Result<T, StorageError>.

@@ -410,9 +410,13 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         const bool analyse = !options.dryRun;
         const auto work = [&](std::size_t m) { return checkAndAnalyse(plan, entriesOf[m], *motors[m], analyse, options.skipBad, lost); };
 
+        // A store nobody else has open gets the round through a rollback journal: its raw files
+        // are then written once, not into the log and again at the checkpoint (Database.h).
+        std::optional<storage::SoleWriterJournal> journal; // declared first: outlives the transaction
         std::optional<storage::Transaction> tx;
         std::int64_t roundId = 0;
         const auto beginRound = [&] {
+            journal.emplace(store.database());
             tx.emplace(store.database());
             roundId = insertRoundRow(store, man, fleet, folder, rep);
         };

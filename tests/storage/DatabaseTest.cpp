@@ -1,0 +1,185 @@
+// The rollback journal for one large write on a store nobody else has open (Database.h,
+// SoleWriterJournal): taken only when SQLite grants it, the log back afterwards, a rolled-back
+// write leaves the file as it was, and a process killed inside the write leaves a journal that
+// the next connection opening for writing rolls back (a read-only one says what to do).
+#include "storage/Database.h"
+#include "support/TestSupport.h"
+
+#include <gtest/gtest.h>
+
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <cstddef>
+#include <filesystem>
+#include <vector>
+
+namespace humwise::storage {
+namespace {
+
+namespace fs = std::filesystem;
+
+fs::path freshPath(const std::string& name) {
+    const fs::path dir = test::outputDir() / "storage";
+    fs::create_directories(dir);
+    const fs::path p = dir / name;
+    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) fs::remove(p.string() + suffix);
+    return p;
+}
+
+// A store with 16 KiB pages in WAL mode (as Database opens it) holding one small row.
+void makeStore(const fs::path& p) {
+    Database db(p);
+    db.execute("CREATE TABLE raw(id INTEGER PRIMARY KEY, bytes BLOB NOT NULL)");
+    db.execute("INSERT INTO raw(bytes) VALUES (x'0102')");
+}
+
+std::int64_t rowCount(Database& db) {
+    auto s = db.prepare("SELECT COUNT(*) FROM raw");
+    s.step();
+    return s.integer(0);
+}
+
+// Blobs of `bytes` each: far more than SQLite's page cache, so pages spill to the file mid-way.
+void insertBlobs(Database& db, int count, std::size_t bytes) {
+    const std::vector<std::byte> blob(bytes, std::byte{0x5a});
+    auto s = db.prepare("INSERT INTO raw(bytes) VALUES (?1)");
+    for (int i = 0; i < count; ++i) {
+        s.bindBlob(1, blob).run();
+        s.reset();
+    }
+}
+
+std::uintmax_t sizeOr0(const fs::path& p) {
+    std::error_code ec;
+    const auto n = fs::file_size(p, ec);
+    return ec ? 0 : n;
+}
+
+TEST(SoleWriterJournal, TakenWhenAloneWritesOnceAndGivesTheLogBack) {
+    const auto p = freshPath("sole-alone.db");
+    makeStore(p);
+    Database db(p);
+    ASSERT_EQ(db.journalMode(), "wal");
+    {
+        SoleWriterJournal journal(db);
+        ASSERT_TRUE(journal.taken());
+        EXPECT_EQ(db.journalMode(), "delete");
+        Transaction tx(db);
+        insertBlobs(db, 40, 256 * 1024); // 10 MiB
+        tx.commit();
+        // The pages went into the file, not into a log (none is left to checkpoint).
+        EXPECT_EQ(sizeOr0(p.string() + "-wal"), 0u);
+        EXPECT_FALSE(fs::exists(p.string() + "-journal"));
+        EXPECT_GT(sizeOr0(p), 10u * 1024 * 1024);
+    }
+    EXPECT_EQ(db.journalMode(), "wal");
+    EXPECT_EQ(rowCount(db), 41);
+    auto check = db.prepare("PRAGMA integrity_check");
+    ASSERT_TRUE(check.step());
+    EXPECT_EQ(check.text(0), "ok");
+}
+
+TEST(SoleWriterJournal, RefusedWhileAnotherConnectionHasTheStoreOpenAndReadersCarryOn) {
+    const auto p = freshPath("sole-shared.db");
+    makeStore(p);
+    Database reader(p, Database::Mode::ReadOnly);
+    ASSERT_EQ(rowCount(reader), 1);
+    Database db(p);
+    SoleWriterJournal journal(db);
+    EXPECT_FALSE(journal.taken());
+    EXPECT_EQ(db.journalMode(), "wal");
+    Transaction tx(db);
+    insertBlobs(db, 40, 256 * 1024);
+    // Through the log, the other connection still reads the last committed state meanwhile.
+    EXPECT_EQ(rowCount(reader), 1);
+    tx.commit();
+    EXPECT_EQ(rowCount(reader), 41);
+}
+
+TEST(SoleWriterJournal, RolledBackWriteLeavesTheFileAsItWas) {
+    const auto p = freshPath("sole-rollback.db");
+    makeStore(p);
+    const auto before = sizeOr0(p);
+    Database db(p);
+    {
+        SoleWriterJournal journal(db);
+        ASSERT_TRUE(journal.taken());
+        Transaction tx(db);
+        insertBlobs(db, 40, 256 * 1024);
+        db.execute("DELETE FROM raw WHERE id = 1"); // a page that held data: journaled, restored
+        EXPECT_GT(sizeOr0(p), before);              // spilled into the file already
+    }                                               // not committed: rolled back
+    EXPECT_EQ(db.journalMode(), "wal");
+    EXPECT_EQ(rowCount(db), 1);
+    EXPECT_LE(sizeOr0(p), before);
+}
+
+TEST(SoleWriterJournal, ConnectionOpenedDuringTheWriteWaitsThenSaysLocked) {
+    const auto p = freshPath("sole-busy.db");
+    makeStore(p);
+    Database db(p);
+    SoleWriterJournal journal(db);
+    ASSERT_TRUE(journal.taken());
+    Transaction tx(db);
+    insertBlobs(db, 40, 256 * 1024); // spilled: the writer holds the file exclusively
+    try {
+        Database late(p, Database::Mode::ReadWrite, 200);
+        rowCount(late);
+        FAIL() << "a connection opened during the write read the store";
+    } catch (const StorageException& e) {
+        EXPECT_EQ(e.error.code, StorageError::Code::Busy) << e.error.message;
+        EXPECT_NE(e.error.message.find("locked by another process"), std::string::npos) << e.error.message;
+        EXPECT_NE(e.error.message.find(p.filename().string()), std::string::npos) << e.error.message;
+    }
+    tx.commit();
+    Database late(p, Database::Mode::ReadWrite, 200);
+    EXPECT_EQ(rowCount(late), 41);
+}
+
+TEST(SoleWriterJournal, KilledInsideTheWriteIsRolledBackByTheNextWriterOpen) {
+    const auto p = freshPath("sole-killed.db");
+    makeStore(p);
+    const pid_t pid = fork();
+    ASSERT_GE(pid, 0);
+    if (pid == 0) {
+        // The child dies inside the transaction, with pages already in the file.
+        try {
+            Database db(p);
+            SoleWriterJournal journal(db);
+            if (!journal.taken()) _exit(3);
+            Transaction tx(db);
+            db.execute("DELETE FROM raw");
+            insertBlobs(db, 40, 256 * 1024);
+            _exit(0); // no destructor runs: as a kill -9 would leave it
+        } catch (...) {
+            _exit(4);
+        }
+    }
+    int status = 0;
+    ASSERT_EQ(waitpid(pid, &status, 0), pid);
+    ASSERT_TRUE(WIFEXITED(status));
+    ASSERT_EQ(WEXITSTATUS(status), 0) << "the child could not take the journal or write";
+    ASSERT_TRUE(fs::exists(p.string() + "-journal")) << "no journal was left to roll back";
+
+    // Read-only: cannot roll back; the error says what happened and what to do.
+    try {
+        Database ro(p, Database::Mode::ReadOnly);
+        rowCount(ro);
+        FAIL() << "a read-only connection read past a journal it cannot roll back";
+    } catch (const StorageException& e) {
+        EXPECT_NE(e.error.message.find("interrupted"), std::string::npos) << e.error.message;
+        EXPECT_NE(e.error.message.find("open it once for writing"), std::string::npos) << e.error.message;
+    }
+    // Opening for writing rolls it back and restores the log.
+    Database db(p);
+    EXPECT_EQ(db.journalMode(), "wal");
+    EXPECT_EQ(rowCount(db), 1);
+    auto check = db.prepare("PRAGMA integrity_check");
+    ASSERT_TRUE(check.step());
+    EXPECT_EQ(check.text(0), "ok");
+    EXPECT_FALSE(fs::exists(p.string() + "-journal"));
+}
+
+} // namespace
+} // namespace humwise::storage
