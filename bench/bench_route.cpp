@@ -381,24 +381,30 @@ double fileSize(const fs::path& p) {
 
 // A store's file and the write-ahead log and index SQLite keeps beside it.
 void removeStore(const fs::path& db) {
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
+    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) fs::remove(db.string() + suffix);
 }
 
 // ---- Phase a': the storage floor -----------------------------------------------------------
 
 // What keeping the raw files costs by itself, with no analysis: every file's bytes read and
-// written as one blob into a fresh store opened as the fleet store is (16 KiB pages, WAL,
-// synchronous NORMAL), in one transaction; the commit's checkpoint copies the log into the
-// database file and syncs both, as the import's commit does.
-void runStoreFloor(const fs::path& dir, const Reporter& report) {
+// written as one blob into a fresh store opened as the fleet store is (16 KiB pages), in one
+// transaction, written as the import writes a round: through a rollback journal when nobody
+// else has the store open (storage/Database.h, SoleWriterJournal), which here nobody has.
+// With `throughLog`, for comparison, through the write-ahead log instead (as when the store is
+// open elsewhere): the commit's checkpoint then copies the log into the file and syncs both.
+void runStoreFloor(const fs::path& dir, bool throughLog, const Reporter& report) {
     const auto files = manifestFiles(dir / "walkdown");
     const fs::path db = dir / "store-floor.sqlite";
     removeStore(db);
     double commitS = 0;
+    bool journalTaken = false;
     const auto t0 = Clock::now();
     {
         storage::Database database(db);
         database.execute("CREATE TABLE raw(id INTEGER PRIMARY KEY, bytes BLOB NOT NULL)");
+        std::optional<storage::SoleWriterJournal> journal;
+        if (!throughLog) journal.emplace(database);
+        journalTaken = journal && journal->taken();
         storage::Transaction tx(database);
         auto insert = database.prepare("INSERT INTO raw(bytes) VALUES (?1)");
         for (const auto& f : files) {
@@ -411,6 +417,7 @@ void runStoreFloor(const fs::path& dir, const Reporter& report) {
         tx.commit();
         commitS = secondsSince(t);
     }
+    report("journal_taken", journalTaken ? 1 : 0);
     report("total_s", secondsSince(t0));
     report("commit_s", commitS);
     report("db_bytes", fileSize(db));
@@ -653,10 +660,12 @@ void require(const PhaseResult& r, const char* what) {
     if (!r.ok()) throw std::runtime_error(std::string(what) + " failed (exit status " + std::to_string(r.status) + ")");
 }
 
-void printRow(const std::string& name, double seconds, double ratio, const std::string& ratioOf, double rssMiB, const std::string& note = {}) {
+// `cpu`: the phase's processor time, user + system over all its threads (wait4), set-up in the
+// child included; on two cores a phase cannot take less wall time than half of it.
+void printRow(const std::string& name, double seconds, double ratio, const std::string& ratioOf, const PhaseResult& cpu, const std::string& note = {}) {
     std::cout << "| " << std::left << std::setw(44) << name << std::right << " | " << std::setw(8) << std::fixed << std::setprecision(2) << seconds
-              << " | " << std::setw(6) << (ratio > 0 ? std::to_string(ratio).substr(0, 5) : "") << " " << std::left << std::setw(10) << ratioOf << std::right << " | " << std::setw(8)
-              << std::setprecision(1) << rssMiB << " | " << note << "\n";
+              << " | " << std::setw(6) << (ratio > 0 ? std::to_string(ratio).substr(0, 5) : "") << " " << std::left << std::setw(10) << ratioOf << std::right
+              << " | " << std::setw(6) << cpu.userS + cpu.systemS << " | " << std::setw(8) << std::setprecision(1) << cpu.maxRssMiB << " | " << note << "\n";
 }
 
 std::string mib(double bytes) {
@@ -713,7 +722,7 @@ PhaseResult medianRun(std::vector<PhaseResult> runs, const std::string& key) {
 }
 
 struct Figures {
-    PhaseResult gen, floor, storeFloor, filesFloor, alone1, alone2, t1, t2, stages;
+    PhaseResult gen, floor, storeFloor, logFloor, filesFloor, alone1, alone2, t1, t2, stages;
     std::optional<PhaseResult> scipy;
     std::string scipySkipped;
 };
@@ -721,7 +730,7 @@ struct Figures {
 void printImportRow(const std::string& name, const PhaseResult& r, double floorS, double largest) {
     const double t = r.values.at("import_s");
     const double limitMiB = 2 * largest / (1024.0 * 1024.0) + 200;
-    printRow(name, t, t / floorS, "x floor", r.maxRssMiB,
+    printRow(name, t, t / floorS, "x floor", r,
              "db " + mib(r.values.at("db_bytes")) + " + wal " + mib(r.values.at("wal_bytes")) + "; memory target " +
                  (r.maxRssMiB <= limitMiB ? "met" : "MISSED"));
 }
@@ -739,29 +748,33 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
               << mib(2 * largest + 200.0 * 1024 * 1024) << "\n";
     std::cout << "bench parent RSS at fork (a floor under every child's peak): " << std::fixed << std::setprecision(1) << parentRssMiB << " MiB\n\n";
     std::cout << "floors, analyses and imports: median of " << f.floor.runs << " interleaved runs each (peak memory: the largest)\n\n";
-    std::cout << "| phase                                        |   wall s |  ratio            | peak MiB | notes\n";
-    std::cout << "|---|---:|---:|---:|---|\n";
-    printRow("generate fleet + walkdown (set-up)", f.gen.wallS, 0, "", f.gen.maxRssMiB);
-    printRow("floor: read all + one bare FFT per channel", floorS, 1.0, "", f.floor.maxRssMiB,
+    std::cout << "| phase                                        |   wall s |  ratio            |  CPU s | peak MiB | notes\n";
+    std::cout << "|---|---:|---:|---:|---:|---|\n";
+    printRow("generate fleet + walkdown (set-up)", f.gen.wallS, 0, "", f.gen);
+    printRow("floor: read all + one bare FFT per channel", floorS, 1.0, "", f.floor,
              "read " + std::to_string(f.floor.values.at("read_s")).substr(0, 5) + " s, FFT " + std::to_string(f.floor.values.at("fft_s")).substr(0, 5) +
                  " s, plans+warm read " + std::to_string(f.floor.values.at("plan_s")).substr(0, 5) + " s (excluded)");
     const double storeS = f.storeFloor.values.at("total_s");
-    printRow("storage floor: raw files into a store, no analysis", storeS, storeS / floorS, "x floor", f.storeFloor.maxRssMiB,
-             "commit (WAL checkpoint) " + std::to_string(f.storeFloor.values.at("commit_s")).substr(0, 5) + " s; db " +
-                 mib(f.storeFloor.values.at("db_bytes")));
+    const auto storeNote = [](const PhaseResult& r) {
+        return std::string(r.values.at("journal_taken") > 0 ? "rollback journal" : "write-ahead log") + ", commit " +
+               std::to_string(r.values.at("commit_s")).substr(0, 5) + " s; db " + mib(r.values.at("db_bytes"));
+    };
+    printRow("storage floor: raw files into a store, no analysis", storeS, storeS / floorS, "x floor", f.storeFloor, storeNote(f.storeFloor));
+    const double logS = f.logFloor.values.at("total_s");
+    printRow("  for comparison: the same through the write-ahead log", logS, logS / floorS, "x floor", f.logFloor, storeNote(f.logFloor));
     const double filesS = f.filesFloor.values.at("total_s");
-    printRow("  for comparison: the raw files as files of their own, synced", filesS, filesS / floorS, "x floor", f.filesFloor.maxRssMiB,
+    printRow("  for comparison: the raw files as files of their own, synced", filesS, filesS / floorS, "x floor", f.filesFloor,
              "fsync of the files and folder " + std::to_string(f.filesFloor.values.at("sync_s")).substr(0, 5) + " s");
     for (const auto* r : {&f.alone1, &f.alone2}) {
         const double t = r->values.at("total_s");
         printRow(std::string("analysis alone (read + analyse, no store), threads = ") + (r == &f.alone1 ? "1" : "2"), t, t / floorS, "x floor",
-                 r->maxRssMiB, "findings " + std::to_string(static_cast<long>(r->values.at("findings"))));
+                 *r, "findings " + std::to_string(static_cast<long>(r->values.at("findings"))));
     }
     printImportRow("import, threads = 1 (target <= 3x floor)", f.t1, floorS, largest);
     printImportRow("import, threads = 2", f.t2, floorS, largest);
     for (const auto* r : {&f.t1, &f.t2})
         std::cout << "  import, threads = " << (r == &f.t1 ? 1 : 2) << ": first motor read, checked, analysed and stored at " << std::setprecision(2)
-                  << r->values.at("first_motor_s") << " s, the last at " << r->values.at("last_motor_s") << " s; commit (WAL checkpoint) "
+                  << r->values.at("first_motor_s") << " s, the last at " << r->values.at("last_motor_s") << " s; commit "
                   << r->values.at("import_s") - r->values.at("last_motor_s") << " s\n";
     std::cout << "  floor + storage floor = " << std::setprecision(2) << floorS + storeS << " s (" << (floorS + storeS) / floorS
               << "x the floor): reading, one FFT and keeping the raw files, with no analysis at all\n";
@@ -770,7 +783,7 @@ void printSummary(const Options& o, const Figures& f, double parentRssMiB) {
               << ", flagged " << static_cast<long>(f.t1.values.at("flagged"))
               << ", fleet stored in " << std::setprecision(3) << f.t1.values.at("fleet_s") << " s (not in the import time)\n";
     if (f.scipy) {
-        printRow("scipy pipeline, one thread", f.scipy->wallS, f.scipy->wallS / t1, "x import1", f.scipy->maxRssMiB,
+        printRow("scipy pipeline, one thread", f.scipy->wallS, f.scipy->wallS / t1, "x import1", *f.scipy,
                  "vs 2 threads: " + std::to_string(f.scipy->wallS / f.t2.values.at("import_s")).substr(0, 5) + "x (target >= 10x)");
         // The same work on one core each: the analysis alone on one thread (every file read and
         // parsed, analyseMotor for every motor; no hashing, checks or storage), against the script.
@@ -808,15 +821,17 @@ Figures measure(const Options& o) {
     // The floor and both imports, interleaved, `repeat` times: each figure is the run of median
     // time (a shared virtual machine's page cache and neighbours move single runs by +-30 %), its
     // peak memory the largest of all runs.
-    std::vector<PhaseResult> floors{f.floor}, storeFloors, filesFloors, alones1, alones2, ones, twos;
+    std::vector<PhaseResult> floors{f.floor}, storeFloors, logFloors, filesFloors, alones1, alones2, ones, twos;
     for (int rep = 0; rep < o.repeat; ++rep) {
         if (rep > 0) {
             floors.push_back(runInChild([&](const Reporter& r) { runFloor(o.dir / "walkdown", r); }));
             require(floors.back(), "floor");
         }
         std::cout << "storage floor, run " << rep + 1 << " of " << o.repeat << " ...\n";
-        storeFloors.push_back(runInChild([&](const Reporter& r) { runStoreFloor(o.dir, r); }));
+        storeFloors.push_back(runInChild([&](const Reporter& r) { runStoreFloor(o.dir, false, r); }));
         require(storeFloors.back(), "storage floor");
+        logFloors.push_back(runInChild([&](const Reporter& r) { runStoreFloor(o.dir, true, r); }));
+        require(logFloors.back(), "storage floor through the log");
         filesFloors.push_back(runInChild([&](const Reporter& r) { runFilesFloor(o.dir, r); }));
         require(filesFloors.back(), "files floor");
         for (unsigned threads : {1u, 2u}) {
@@ -834,6 +849,7 @@ Figures measure(const Options& o) {
     }
     f.floor = medianRun(floors, "total_s");
     f.storeFloor = medianRun(storeFloors, "total_s");
+    f.logFloor = medianRun(logFloors, "total_s");
     f.filesFloor = medianRun(filesFloors, "total_s");
     f.alone1 = medianRun(alones1, "total_s");
     f.alone2 = medianRun(alones2, "total_s");
