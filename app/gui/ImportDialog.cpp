@@ -60,6 +60,8 @@ ImportDialog::~ImportDialog() {
     if (m_thread) {
         m_cancelled = true;
         m_thread->wait();
+        delete m_thread;
+        m_session.resume(); // closed while the import ran; an error leaves it closed, as at start
     }
 }
 
@@ -117,6 +119,7 @@ void ImportDialog::startImport() {
     m_cancel->setEnabled(true);
     const std::string db = m_session.path().toStdString(), folder = m_folder->text().toStdString();
     const bool skipBad = m_skipBad->isChecked();
+    m_session.suspend(); // the import may then have the store to itself (StoreSession.h)
     m_thread = QThread::create([this, db, folder, skipBad] {
         // The worker's own connection: SQLite connections are not shared between threads here.
         bool ok = false;
@@ -161,8 +164,8 @@ void ImportDialog::finish(bool ok, const QString& text) {
     m_check->setEnabled(true);
     m_import->setEnabled(true);
     m_cancel->setEnabled(false);
-    m_summary->setText(text);
-    if (ok) m_session.reload();
+    const QString reopened = m_session.resume();
+    m_summary->setText(reopened.isEmpty() ? text : text + "\n" + reopened);
     emit importFinished(ok, text);
 }
 

@@ -16,6 +16,13 @@ QString StoreSession::open(const QString& path) {
     }
 }
 
+void StoreSession::suspend() { m_store.reset(); }
+
+QString StoreSession::resume() {
+    if (m_store || m_path.isEmpty()) return {};
+    return open(m_path);
+}
+
 void StoreSession::reload() {
     if (!m_store) return;
     try {

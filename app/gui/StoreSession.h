@@ -21,6 +21,13 @@ public:
 
     // Opens the database; on failure returns the message and keeps the previous one.
     QString open(const QString& path);
+    // Closes the connection while a long write in a worker (an import) runs, so that the write
+    // finds the store unused and may take it to itself (storage/Database.h, SoleWriterJournal:
+    // its raw files are then written once); the views keep the data they loaded and see
+    // isOpen() false meanwhile. resume() reopens the same store and reloads; on failure it
+    // returns the message and the session stays closed.
+    void suspend();
+    QString resume();
     bool isOpen() const { return m_store != nullptr; }
     QString path() const { return m_path; }
     storage::FleetStore& store() { return *m_store; }
