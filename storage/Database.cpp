@@ -220,7 +220,7 @@ SoleWriterJournal::SoleWriterJournal(Database& db) : m_db(db) {
     try {
         if (journalModePragma(m_db, "PRAGMA journal_mode = DELETE") != "delete") return;
         m_taken = true;
-        m_db.execute("PRAGMA synchronous = FULL");
+        m_db.execute("PRAGMA synchronous = EXTRA");
     } catch (const StorageException& e) {
         // Busy: another connection has the store open; the log stays and readers carry on.
         if (e.error.code != StorageError::Code::Busy) throw;

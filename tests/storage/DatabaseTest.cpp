@@ -50,6 +50,13 @@ void insertBlobs(Database& db, int count, std::size_t bytes) {
     }
 }
 
+// PRAGMA synchronous as SQLite numbers it: 1 NORMAL, 2 FULL, 3 EXTRA.
+std::int64_t synchronousLevel(Database& db) {
+    auto s = db.prepare("PRAGMA synchronous");
+    s.step();
+    return s.integer(0);
+}
+
 std::uintmax_t sizeOr0(const fs::path& p) {
     std::error_code ec;
     const auto n = fs::file_size(p, ec);
@@ -65,6 +72,7 @@ TEST(SoleWriterJournal, TakenWhenAloneWritesOnceAndGivesTheLogBack) {
         SoleWriterJournal journal(db);
         ASSERT_TRUE(journal.taken());
         EXPECT_EQ(db.journalMode(), "delete");
+        EXPECT_EQ(synchronousLevel(db), 3) << "the commit must survive a power cut: EXTRA";
         Transaction tx(db);
         insertBlobs(db, 40, 256 * 1024); // 10 MiB
         tx.commit();
@@ -74,6 +82,7 @@ TEST(SoleWriterJournal, TakenWhenAloneWritesOnceAndGivesTheLogBack) {
         EXPECT_GT(sizeOr0(p), 10u * 1024 * 1024);
     }
     EXPECT_EQ(db.journalMode(), "wal");
+    EXPECT_EQ(synchronousLevel(db), 1);
     EXPECT_EQ(rowCount(db), 41);
     auto check = db.prepare("PRAGMA integrity_check");
     ASSERT_TRUE(check.step());
