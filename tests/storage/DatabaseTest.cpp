@@ -19,13 +19,7 @@ namespace {
 
 namespace fs = std::filesystem;
 
-fs::path freshPath(const std::string& name) {
-    const fs::path dir = test::outputDir() / "storage";
-    fs::create_directories(dir);
-    const fs::path p = dir / name;
-    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) fs::remove(p.string() + suffix);
-    return p;
-}
+fs::path freshPath(const std::string& name) { return test::freshDatabasePath("storage", name); }
 
 // A store with 16 KiB pages in WAL mode (as Database opens it) holding one small row.
 void makeStore(const fs::path& p) {

@@ -14,11 +14,7 @@ namespace {
 namespace fs = std::filesystem;
 
 std::unique_ptr<FleetStore> freshStore(const std::string& name) {
-    const fs::path dir = test::outputDir() / "storage";
-    fs::create_directories(dir);
-    const fs::path p = dir / name;
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(p.string() + suffix);
-    auto s = FleetStore::open(p);
+    auto s = FleetStore::open(test::freshDatabasePath("storage", name));
     Transaction tx(s->database());
     s->saveFleet(test::smallFleet());
     tx.commit();

@@ -15,11 +15,7 @@ namespace {
 namespace fs = std::filesystem;
 
 fs::path freshDb(const std::string& name) {
-    const fs::path dir = test::outputDir() / "storage";
-    fs::create_directories(dir);
-    const fs::path p = dir / name;
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(p.string() + suffix);
-    return p;
+    return test::freshDatabasePath("storage", name);
 }
 
 TEST(Schema, FreshDatabaseIsCurrentWithForeignKeysAndWal) {

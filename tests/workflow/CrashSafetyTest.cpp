@@ -70,9 +70,7 @@ Micros timeOf(const std::function<std::vector<std::string>()>& args) {
     return fastest;
 }
 
-void removeStore(const fs::path& db) {
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db.string() + suffix);
-}
+void removeStore(const fs::path& db) { test::removeDatabase(db); }
 
 // A store file holding the fixture fleet and `rounds` imported walkdowns, checkpointed into one
 // file so that copies of it are complete stores.
