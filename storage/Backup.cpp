@@ -223,8 +223,9 @@ void restoreDatabase(const fs::path& backup, const fs::path& to, const std::func
 
     if (fs::exists(to, ec) && !hasSqliteHeader(to)) {
         // Not a database at all (overwritten, truncated): no connection can be using it, so it
-        // is replaced as a file, and any -wal/-shm beside it (stale) goes.
-        for (const char* suffix : {"-wal", "-shm"}) fs::remove(to.string() + suffix, ec);
+        // is replaced as a file, and any -wal/-shm/-journal beside it (stale) goes: a journal
+        // left there would be rolled back into the restored file at its first open.
+        for (const char* suffix : {"-wal", "-shm", "-journal"}) fs::remove(to.string() + suffix, ec);
         copyIntoNewFile(source.handle(), "cannot restore " + backup.string() + " into the database (it is unchanged)", to, "the database");
         return;
     }

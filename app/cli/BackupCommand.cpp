@@ -51,7 +51,9 @@ std::string keepSafetyCopy(const std::string& db) {
         // fall through to the byte copy
     }
     std::error_code ec;
-    for (const char* suffix : {"", "-wal"}) {
+    // The store with what SQLite keeps beside it: the log, or the journal of a write that was
+    // interrupted (without it the copy would hold half of that write).
+    for (const char* suffix : {"", "-wal", "-journal"}) {
         const std::string from = db + suffix;
         if (suffix[0] && !fs::exists(from)) {
             fs::remove(copy + suffix, ec);

@@ -26,7 +26,8 @@ SampleDatabaseResult buildSampleDatabase(const fs::path& folder, const fs::path&
     const auto fleet = io::readFleetFile(summary.fleetFile);
     if (!fleet) throw std::runtime_error(fleet.error().message());
     const fs::path partial = database.string() + ".building";
-    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(partial.string() + suffix);
+    // Whatever an interrupted build left, its journal too: a stale one would be rolled back into the new file.
+    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) fs::remove(partial.string() + suffix);
     SampleDatabaseResult out;
     try {
         auto store = storage::FleetStore::open(partial);

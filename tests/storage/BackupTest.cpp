@@ -13,6 +13,9 @@
 
 #include <gtest/gtest.h>
 
+#include <sys/wait.h>
+#include <unistd.h>
+
 #include <cstring>
 #include <functional>
 #include <filesystem>
@@ -35,7 +38,8 @@ fs::path dir() {
 
 fs::path fresh(const std::string& name) {
     const fs::path p = dir() / name;
-    for (const char* suffix : {"", "-wal", "-shm", "-journal", ".part", ".before-restore", ".before-restore-wal"}) fs::remove(p.string() + suffix);
+    for (const char* suffix : {"", "-wal", "-shm", "-journal", ".part", ".before-restore", ".before-restore-wal", ".before-restore-journal"})
+        fs::remove(p.string() + suffix);
     return p;
 }
 
@@ -393,8 +397,10 @@ TEST(Restore, ReplacesAFileThatIsNoDatabaseAnyMore) {
     const fs::path target = fresh("trashed.db");
     test::writeText(target, std::string(5000, 'x'));
     test::writeText(target.string() + "-wal", "stale");
+    test::writeText(target.string() + "-journal", "stale"); // would be rolled back into the restored file
     restoreDatabase(b, target);
     EXPECT_FALSE(fs::exists(target.string() + "-wal"));
+    EXPECT_FALSE(fs::exists(target.string() + "-journal"));
     EXPECT_EQ(dumpFile(target), dumpFile(p));
     EXPECT_TRUE(FleetStore::open(target, false)->checkConsistency().empty());
 }
@@ -426,6 +432,50 @@ TEST(DbBackupCommand, BacksUpAndRestoresWithTheirMessages) {
     const auto kept = bytesOf(r.string() + ".before-restore");
     EXPECT_EQ(std::string(kept.begin(), kept.end()), trash);
     EXPECT_EQ(dumpFile(r), dumpFile(p));
+}
+
+// A store whose last write was cut off inside a rollback journal (an import that had the store
+// to itself, killed): a read-only connection cannot roll it back, so the safety copy is made
+// byte for byte, and it must take the journal along, or it would hold half of that write.
+TEST(DbBackupCommand, KeepsAStoreInterruptedInsideItsJournalWithTheJournal) {
+    const fs::path p = populatedStore("cli-interrupted.db", 1);
+    const auto before = dumpFile(p);
+    const fs::path b = fresh("cli-interrupted.backup");
+    {
+        auto s = FleetStore::open(p, false);
+        backupDatabase(s->database(), b);
+    }
+    const pid_t pid = fork();
+    ASSERT_GE(pid, 0);
+    if (pid == 0) {
+        try {
+            Database db(p, Database::Mode::ReadWrite);
+            SoleWriterJournal journal(db);
+            if (!journal.taken()) _exit(3);
+            Transaction tx(db);
+            db.execute("DELETE FROM findings");
+            db.execute("DELETE FROM indicators");
+            const std::vector<std::byte> blob(8 << 20, std::byte{7}); // past SQLite's page cache
+            db.prepare("INSERT INTO source_files(hash, size, bytes) VALUES ('interrupted', 1, ?1)").bindBlob(1, blob).run();
+            _exit(0); // no destructor: the journal stays hot, as after a kill
+        } catch (...) {
+            _exit(4);
+        }
+    }
+    int status = 0;
+    ASSERT_EQ(waitpid(pid, &status, 0), pid);
+    ASSERT_TRUE(WIFEXITED(status) && WEXITSTATUS(status) == 0) << "the child could not write inside the journal";
+    ASSERT_TRUE(fs::exists(p.string() + "-journal"));
+
+    std::ostringstream out;
+    EXPECT_EQ(cli::runDbRestore({"restore", b.string(), "--db", p.string()}, out), 0) << out.str();
+    const fs::path kept = p.string() + ".before-restore";
+    ASSERT_TRUE(fs::exists(kept.string() + "-journal")) << "the safety copy left the journal behind";
+    // Opened for writing, the copy rolls the cut-off write back: the store as it was before it.
+    EXPECT_TRUE(FleetStore::open(kept, false)->checkConsistency().empty());
+    EXPECT_FALSE(fs::exists(kept.string() + "-journal"));
+    EXPECT_EQ(dumpFile(kept), before);
+    EXPECT_EQ(dumpFile(p), before); // the restored store: the backup, taken before the write
 }
 
 TEST(DbBackupCommand, WrongCommandLinesAndBadFilesGiveTheirErrors) {
