@@ -24,8 +24,8 @@ StorageError::Code codeForSqlite(int rc) {
 
 const char* adviceFor(int rc, StorageError::Code code) {
     if (rc == SQLITE_READONLY_ROLLBACK)
-        return " (a write that was interrupted left its journal beside the database; open it once for writing, with the workbench or a "
-               "humwise-cli command that writes, and SQLite rolls the interrupted write back)";
+        return " (a write that was interrupted left its journal beside the database; open it once with the workbench or any "
+               "humwise-cli command that takes a store, which open it for writing, and SQLite rolls the interrupted write back)";
     switch (code) {
     case StorageError::Code::Busy: return " (the database is locked by another process that is writing to it; try again when it is done)";
     default: return "";
@@ -217,24 +217,32 @@ void Transaction::commit() {
 }
 
 SoleWriterJournal::SoleWriterJournal(Database& db) : m_db(db) {
+    // Inside a transaction (or with a statement left mid-row) the mode cannot change.
+    if (!sqlite3_get_autocommit(m_db.handle())) return;
     try {
         if (journalModePragma(m_db, "PRAGMA journal_mode = DELETE") != "delete") return;
-        m_taken = true;
-        m_db.execute("PRAGMA synchronous = EXTRA");
-    } catch (const StorageException& e) {
-        // Busy: another connection has the store open; the log stays and readers carry on.
-        if (e.error.code != StorageError::Code::Busy) throw;
+    } catch (const StorageException&) {
+        // Refused: SQLITE_BUSY when another connection has the store open (the usual case),
+        // or any other reason. The log is always correct, only slower for this write.
+        return;
     }
+    m_taken = true;
+    m_db.execute("PRAGMA synchronous = EXTRA"); // a failure here: the destructor still restores
 }
 
 SoleWriterJournal::~SoleWriterJournal() {
     if (!m_taken) return;
+    // Each on its own: a failure of the first must not leave the connection at EXTRA.
     try {
         journalModePragma(m_db, "PRAGMA journal_mode = WAL");
-        m_db.execute("PRAGMA synchronous = NORMAL");
     } catch (...) {
         // Still a rollback journal (e.g. a connection opened meanwhile holds a read lock):
         // correct, only without concurrent readers; the next open for writing restores the log.
+    }
+    try {
+        m_db.execute("PRAGMA synchronous = NORMAL");
+    } catch (...) {
+        // Only the connection's setting; it goes with the connection.
     }
 }
 

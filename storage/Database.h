@@ -119,10 +119,13 @@ private:
 // likely faster (https://www.sqlite.org/wal.html, "Performance Considerations"). A walkdown's
 // import appends hundreds of megabytes of raw files: measured in bench/README.md.
 //
-// The price: while the transaction runs, no other connection can read (they wait for their
-// busy timeout, then fail as "locked"). So the switch is made only when SQLite grants it, which
-// is when no other connection has the store open; otherwise taken() is false and the write
-// goes through the log as usual, readers carrying on. Synchronous EXTRA while it lasts: FULL
+// The price: once the transaction has written into the file, no other connection can read
+// until it commits: one opened meanwhile waits for its busy timeout, then fails as "locked"
+// (an import usually takes longer). So the switch is made only when SQLite grants it, which is
+// when no other connection has the store open, and only outside a transaction; otherwise
+// taken() is false and the write goes through the log as usual, readers carrying on. While a
+// journal exists the store's file alone is not consistent: a copy must take the -journal beside
+// it along (or be made with the backup API), and the journal must never be deleted by hand. Synchronous EXTRA while it lasts: FULL
 // syncs the journal before the file is written and the file before the commit, and EXTRA also
 // syncs the folder once the journal is deleted (the deletion is the commit), so that a power cut
 // right after the commit cannot bring the journal back and undo the round

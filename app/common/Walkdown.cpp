@@ -417,6 +417,7 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         std::int64_t roundId = 0;
         const auto beginRound = [&] {
             journal.emplace(store.database());
+            rep.throughJournal = journal->taken();
             tx.emplace(store.database());
             roundId = insertRoundRow(store, man, fleet, folder, rep);
         };

@@ -61,6 +61,9 @@ struct ImportReport {
     std::vector<std::string> unmatched;  // files neither listed nor matched by name
     std::optional<std::int64_t> roundId;
     bool replaced = false;
+    // The round went through a rollback journal, the store having no other connection
+    // (storage/Database.h, SoleWriterJournal); false when it went through the write-ahead log.
+    bool throughJournal = false;
     std::size_t motorsAnalysed = 0;
     std::size_t findings = 0;
     std::vector<std::string> notes;

@@ -139,6 +139,7 @@ void ImportDialog::startImport() {
             const auto r = workflow::importWalkdown(*store, folder, o);
             if (r) {
                 ok = true;
+                m_throughJournal = r.value().throughJournal;
                 text = tr("Stored round %1 of %2: %3 recording(s), %4 motor(s) analysed, %5 finding(s); %6 skipped, %7 flagged.")
                            .arg(*r.value().roundId).arg(QString::fromStdString(r.value().roundStart)).arg(r.value().matched.size())
                            .arg(r.value().motorsAnalysed).arg(r.value().findings).arg(r.value().bad.size()).arg(r.value().flagged.size());

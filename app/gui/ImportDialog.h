@@ -38,6 +38,9 @@ public:
     QString summary() const;
     QProgressBar* progressBar() const { return m_progress; }
     QCheckBox* skipBadBox() const { return m_skipBad; }
+    // Whether the last import that stored a round wrote it through the rollback journal (the
+    // store had no other connection: StoreSession::suspend), not the write-ahead log.
+    bool lastImportWentThroughJournal() const { return m_throughJournal; }
 
 signals:
     void importFinished(bool ok, const QString& summary);
@@ -54,6 +57,7 @@ private:
     QLabel* m_summary;
     QThread* m_thread = nullptr;
     std::atomic<bool> m_cancelled{false};
+    std::atomic<bool> m_throughJournal{false};
 };
 
 } // namespace humwise::gui

@@ -111,6 +111,7 @@ QString LimitsView::saveRow(int row) {
     a.alarm = alarm;
     a.source = m_table->item(row, Source)->text().toStdString();
     a.updatedAt = text::isoNow();
+    if (!m_session.isOpen()) return tr("No store is open");
     try {
         storage::Transaction tx(m_session.store().database());
         m_session.store().setAlarmLimit(a);

@@ -169,7 +169,7 @@ void MainWindow::reanalyseAll() {
 std::optional<workflow::MotorSheet> MainWindow::currentSheet() {
     const QString tag = m_page->motor();
     const auto* st = m_session.statusOf(tag.toStdString());
-    if (tag.isEmpty() || !st || !st->roundId) {
+    if (tag.isEmpty() || !st || !st->roundId || !m_session.isOpen()) {
         QMessageBox::information(this, tr("Finding sheet"), tr("Choose a motor with an analysed round first."));
         return std::nullopt;
     }
@@ -208,7 +208,7 @@ void MainWindow::previewFindingSheet() {
 }
 
 void MainWindow::saveRouteSummary() {
-    if (m_session.rounds().empty()) return;
+    if (!m_session.isOpen() || m_session.rounds().empty()) return;
     const QString path = QFileDialog::getSaveFileName(this, tr("Save route summary"), "route-summary.pdf", tr("PDF files (*.pdf)"));
     if (path.isEmpty()) return;
     try {

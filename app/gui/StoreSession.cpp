@@ -4,9 +4,9 @@ namespace humwise::gui {
 
 StoreSession::StoreSession(QObject* parent) : QObject(parent) {}
 
-QString StoreSession::open(const QString& path) {
+QString StoreSession::open(const QString& path, bool create) {
     try {
-        auto store = storage::FleetStore::open(path.toStdString(), true);
+        auto store = storage::FleetStore::open(path.toStdString(), create);
         m_store = std::move(store);
         m_path = path;
         reload();
@@ -20,7 +20,14 @@ void StoreSession::suspend() { m_store.reset(); }
 
 QString StoreSession::resume() {
     if (m_store || m_path.isEmpty()) return {};
-    return open(m_path);
+    const QString failure = open(m_path, false);
+    if (!failure.isEmpty()) {
+        m_fleet = {};
+        m_rounds.clear();
+        m_status.clear();
+        emit changed();
+    }
+    return failure;
 }
 
 void StoreSession::reload() {

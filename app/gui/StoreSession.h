@@ -19,13 +19,15 @@ class StoreSession : public QObject {
 public:
     explicit StoreSession(QObject* parent = nullptr);
 
-    // Opens the database; on failure returns the message and keeps the previous one.
-    QString open(const QString& path);
+    // Opens the database (creating it when `create` and it does not exist); on failure returns
+    // the message and keeps the previous one.
+    QString open(const QString& path, bool create = true);
     // Closes the connection while a long write in a worker (an import) runs, so that the write
     // finds the store unused and may take it to itself (storage/Database.h, SoleWriterJournal:
     // its raw files are then written once); the views keep the data they loaded and see
-    // isOpen() false meanwhile. resume() reopens the same store and reloads; on failure it
-    // returns the message and the session stays closed.
+    // isOpen() false meanwhile. resume() reopens the same store (never creating it: a store
+    // moved away meanwhile is not replaced by an empty one) and reloads; on failure it returns
+    // the message, and the session stays closed with nothing loaded (views show no store).
     void suspend();
     QString resume();
     bool isOpen() const { return m_store != nullptr; }

@@ -153,6 +153,11 @@ QString VerdictsView::applyNameplate(const motor::Nameplate& n) {
 }
 
 bool VerdictsView::storeNameplate(const motor::Nameplate& n, QString& error) {
+    if (!m_session.isOpen()) {
+        error = tr("No store is open");
+        m_message->setText(error);
+        return false;
+    }
     fleet::Fleet f = m_session.fleet();
     for (auto& m : f.motors)
         if (m.motor.tag == m_tag.toStdString()) m.motor.nameplate = n;

@@ -100,6 +100,19 @@ TEST(SoleWriterJournal, RefusedWhileAnotherConnectionHasTheStoreOpenAndReadersCa
     EXPECT_EQ(rowCount(reader), 41);
 }
 
+TEST(SoleWriterJournal, NotTakenInsideATransaction) {
+    const auto p = freshPath("sole-in-tx.db");
+    makeStore(p);
+    Database db(p);
+    Transaction tx(db);
+    SoleWriterJournal journal(db);
+    EXPECT_FALSE(journal.taken());
+    EXPECT_EQ(db.journalMode(), "wal");
+    insertBlobs(db, 1, 1024);
+    tx.commit();
+    EXPECT_EQ(rowCount(db), 2);
+}
+
 TEST(SoleWriterJournal, RolledBackWriteLeavesTheFileAsItWas) {
     const auto p = freshPath("sole-rollback.db");
     makeStore(p);
@@ -172,7 +185,7 @@ TEST(SoleWriterJournal, KilledInsideTheWriteIsRolledBackByTheNextWriterOpen) {
         FAIL() << "a read-only connection read past a journal it cannot roll back";
     } catch (const StorageException& e) {
         EXPECT_NE(e.error.message.find("interrupted"), std::string::npos) << e.error.message;
-        EXPECT_NE(e.error.message.find("open it once for writing"), std::string::npos) << e.error.message;
+        EXPECT_NE(e.error.message.find("which open it for writing"), std::string::npos) << e.error.message;
     }
     // Opening for writing rolls it back and restores the log.
     Database db(p);

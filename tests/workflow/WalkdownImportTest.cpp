@@ -112,6 +112,30 @@ TEST(WalkdownImport, SameWalkdownTwiceIsRefusedOrReplaced) {
     EXPECT_EQ(count(*s, "recordings"), 12u);
 }
 
+// A store nobody else has open takes the round through a rollback journal (storage/Database.h);
+// with another connection open, through the write-ahead log, that connection reading on. The
+// stored round is the same either way, and the store is back in WAL mode afterwards.
+TEST(WalkdownImport, RoundGoesThroughTheJournalOnlyWhenTheStoreIsUnused) {
+    auto alone = storeWithFleet("journal-alone");
+    auto shared = storeWithFleet("journal-shared");
+    const auto folder = test::freshFolder("journal-walk");
+    test::writeWalkdown(folder);
+    const auto a = importWalkdown(*alone, folder);
+    ASSERT_TRUE(a.ok()) << a.error().message;
+    EXPECT_TRUE(a.value().throughJournal);
+    EXPECT_EQ(alone->database().journalMode(), "wal");
+
+    const auto reader = storage::FleetStore::openReadOnly(shared->database().path());
+    ASSERT_TRUE(reader->rounds().empty());
+    const auto b = importWalkdown(*shared, folder);
+    ASSERT_TRUE(b.ok()) << b.error().message;
+    EXPECT_FALSE(b.value().throughJournal);
+    EXPECT_EQ(shared->database().journalMode(), "wal");
+    EXPECT_EQ(reader->rounds().size(), 1u);
+    for (const char* t : {"rounds", "recordings", "source_files", "findings", "indicators", "spectra"})
+        EXPECT_EQ(count(*alone, t), count(*shared, t)) << t;
+}
+
 TEST(WalkdownImport, DryRunMatchesButStoresNothing) {
     auto s = storeWithFleet("dry");
     const auto folder = test::freshFolder("dry");
