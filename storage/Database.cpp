@@ -226,8 +226,18 @@ SoleWriterJournal::SoleWriterJournal(Database& db) : m_db(db) {
         // or any other reason. The log is always correct, only slower for this write.
         return;
     }
-    m_taken = true;
-    m_db.execute("PRAGMA synchronous = EXTRA"); // a failure here: the destructor still restores
+    try {
+        m_db.execute("PRAGMA synchronous = EXTRA");
+        m_taken = true;
+    } catch (const StorageException&) {
+        // Without EXTRA the journal would not be durable across a power cut: back to the log (no
+        // destructor runs for a constructor that throws, so this one gives it back itself).
+        try {
+            journalModePragma(m_db, "PRAGMA journal_mode = WAL");
+        } catch (...) {
+            // Left in rollback mode: correct, and the next open for writing restores the log.
+        }
+    }
 }
 
 SoleWriterJournal::~SoleWriterJournal() {
