@@ -386,10 +386,7 @@ double fileSize(const fs::path& p) {
     return ec ? 0.0 : static_cast<double>(s);
 }
 
-// A store's file and the write-ahead log and index SQLite keeps beside it.
-void removeStore(const fs::path& db) {
-    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) fs::remove(db.string() + suffix);
-}
+void removeStore(const fs::path& db) { storage::removeDatabaseFiles(db); }
 
 // ---- Phase a': the storage floor -----------------------------------------------------------
 
@@ -667,12 +664,13 @@ void require(const PhaseResult& r, const char* what) {
     if (!r.ok()) throw std::runtime_error(std::string(what) + " failed (exit status " + std::to_string(r.status) + ")");
 }
 
-// `cpu`: the phase's processor time, user + system over all its threads (wait4), set-up in the
-// child included; on two cores a phase cannot take less wall time than half of it.
-void printRow(const std::string& name, double seconds, double ratio, const std::string& ratioOf, const PhaseResult& cpu, const std::string& note = {}) {
+// From `usage`: the phase's processor time, user + system over all its threads (wait4), set-up in
+// the child included (on two cores a phase cannot take less wall time than half of it), and its
+// peak memory.
+void printRow(const std::string& name, double seconds, double ratio, const std::string& ratioOf, const PhaseResult& usage, const std::string& note = {}) {
     std::cout << "| " << std::left << std::setw(44) << name << std::right << " | " << std::setw(8) << std::fixed << std::setprecision(2) << seconds
               << " | " << std::setw(6) << (ratio > 0 ? std::to_string(ratio).substr(0, 5) : "") << " " << std::left << std::setw(10) << ratioOf << std::right
-              << " | " << std::setw(6) << cpu.userS + cpu.systemS << " | " << std::setw(8) << std::setprecision(1) << cpu.maxRssMiB << " | " << note << "\n";
+              << " | " << std::setw(6) << usage.userS + usage.systemS << " | " << std::setw(8) << std::setprecision(1) << usage.maxRssMiB << " | " << note << "\n";
 }
 
 std::string mib(double bytes) {

@@ -47,7 +47,7 @@ int main(int argc, char** argv) {
     const int motors = argc > 1 ? std::atoi(argv[1]) : 1000;
     const int rounds = argc > 2 ? std::atoi(argv[2]) : 120;
     const std::filesystem::path path = argc > 3 ? argv[3] : std::filesystem::temp_directory_path() / "humwise-bench-store.db";
-    for (const char* suffix : {"", "-wal", "-shm"}) std::filesystem::remove(path.string() + suffix);
+    storage::removeDatabaseFiles(path);
     const char* perPoint[] = {"velocity_rms", "1x", "2x", "env_bpfo"};
     const char* perMotor[] = {"slip", "speed_rpm", "sideband_db", "current_unbalance"};
 

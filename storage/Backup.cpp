@@ -122,8 +122,7 @@ public:
         if (m_armed) removeNow();
     }
     void removeNow() const {
-        std::error_code ec;
-        for (const char* suffix : {"", "-journal", "-wal", "-shm"}) fs::remove(m_path.string() + suffix, ec);
+        removeDatabaseFiles(m_path);
     }
     void release() { m_armed = false; }
 
@@ -225,7 +224,7 @@ void restoreDatabase(const fs::path& backup, const fs::path& to, const std::func
         // Not a database at all (overwritten, truncated): no connection can be using it, so it
         // is replaced as a file, and any -wal/-shm/-journal beside it (stale) goes: a journal
         // left there would be rolled back into the restored file at its first open.
-        for (const char* suffix : {"-wal", "-shm", "-journal"}) fs::remove(to.string() + suffix, ec);
+        removeFilesBeside(to);
         copyIntoNewFile(source.handle(), "cannot restore " + backup.string() + " into the database (it is unchanged)", to, "the database");
         return;
     }

@@ -199,6 +199,17 @@ std::optional<std::int64_t> Statement::optionalInteger(int c) const {
     return integer(c);
 }
 
+void removeFilesBeside(const std::filesystem::path& db) {
+    std::error_code ec;
+    for (const char* suffix : kFilesBesideDatabase) std::filesystem::remove(db.string() + suffix, ec);
+}
+
+void removeDatabaseFiles(const std::filesystem::path& db) {
+    std::error_code ec;
+    std::filesystem::remove(db, ec);
+    removeFilesBeside(db);
+}
+
 Transaction::Transaction(Database& db) : m_db(db) { m_db.execute("BEGIN IMMEDIATE"); }
 
 Transaction::~Transaction() {

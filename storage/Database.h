@@ -93,6 +93,16 @@ private:
     sqlite3_stmt* m_stmt;
 };
 
+// The files SQLite keeps beside a database file: the write-ahead log and its index, and the
+// rollback journal of a write in progress or cut off (SoleWriterJournal below). Whatever copies,
+// moves or removes a store handles them with it: a stale journal beside a new file of the same
+// name would be rolled back into it at its first open.
+inline constexpr const char* kFilesBesideDatabase[] = {"-wal", "-shm", "-journal"};
+// Removes those files beside `db` (not `db` itself); errors are ignored (a file not there).
+void removeFilesBeside(const std::filesystem::path& db);
+// Removes `db` and the files beside it; errors are ignored.
+void removeDatabaseFiles(const std::filesystem::path& db);
+
 // BEGIN IMMEDIATE ... COMMIT, rolled back by the destructor unless committed.
 class Transaction {
 public:
@@ -125,11 +135,11 @@ private:
 // when no other connection has the store open, and only outside a transaction; otherwise
 // taken() is false and the write goes through the log as usual, readers carrying on. While a
 // journal exists the store's file alone is not consistent: a copy must take the -journal beside
-// it along (or be made with the backup API), and the journal must never be deleted by hand. Synchronous EXTRA while it lasts: FULL
-// syncs the journal before the file is written and the file before the commit, and EXTRA also
-// syncs the folder once the journal is deleted (the deletion is the commit), so that a power cut
-// right after the commit cannot bring the journal back and undo the round
-// (https://www.sqlite.org/pragma.html#pragma_synchronous). If the process dies inside the
+// it along (or be made with the backup API), and the journal must never be deleted by hand.
+// Synchronous EXTRA while it lasts: FULL syncs the journal before the file is written and the
+// file before the commit, and EXTRA also syncs the folder once the journal is deleted (the
+// deletion is the commit), so that a power cut right after the commit cannot bring the journal
+// back and undo the round (https://www.sqlite.org/pragma.html#pragma_synchronous). If the process dies inside the
 // transaction, the journal left beside the store is rolled back by the next connection that
 // opens it for writing, which also puts the log back (Database's constructor); a read-only
 // connection cannot, and says so.

@@ -26,8 +26,7 @@ SampleDatabaseResult buildSampleDatabase(const fs::path& folder, const fs::path&
     const auto fleet = io::readFleetFile(summary.fleetFile);
     if (!fleet) throw std::runtime_error(fleet.error().message());
     const fs::path partial = database.string() + ".building";
-    // Whatever an interrupted build left, its journal too: a stale one would be rolled back into the new file.
-    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) fs::remove(partial.string() + suffix);
+    storage::removeDatabaseFiles(partial); // whatever an interrupted build left, its journal too
     SampleDatabaseResult out;
     try {
         auto store = storage::FleetStore::open(partial);
@@ -49,7 +48,7 @@ SampleDatabaseResult buildSampleDatabase(const fs::path& folder, const fs::path&
     }
     // The finished database appears under its name only when complete.
     fs::rename(partial, database);
-    for (const char* suffix : {"-wal", "-shm"}) fs::remove(partial.string() + suffix);
+    storage::removeFilesBeside(partial);
     out.database = database;
     out.folder = folder;
     out.nextWalkdown = summary.walkdowns.back();

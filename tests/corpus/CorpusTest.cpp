@@ -440,7 +440,7 @@ fs::path caseFolder(const std::string& name) {
 }
 
 std::unique_ptr<storage::FleetStore> storeWithFleet(const fs::path& db) {
-    test::removeDatabase(db);
+    storage::removeDatabaseFiles(db);
     auto s = storage::FleetStore::open(db);
     storage::Transaction tx(s->database());
     s->saveFleet(test::smallFleet());

@@ -3,6 +3,7 @@
 // write leaves the file as it was, and a process killed inside the write leaves a journal that
 // the next connection opening for writing rolls back (a read-only one says what to do).
 #include "storage/Database.h"
+#include "support/StorePaths.h"
 #include "support/TestSupport.h"
 
 #include <gtest/gtest.h>

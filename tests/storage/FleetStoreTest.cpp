@@ -1,6 +1,7 @@
 // The repository API: fleet round trip, rounds, recordings, findings with evidence, trends in
 // date order, alarm limits and the consistency check.
 #include "storage/FleetStore.h"
+#include "support/StorePaths.h"
 #include "support/TestSupport.h"
 #include "workflow/FixtureFleet.h"
 

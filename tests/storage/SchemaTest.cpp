@@ -2,6 +2,7 @@
 // data intact; a database from a newer program is refused untouched; foreign keys, WAL and the
 // busy timeout are on.
 #include "storage/FleetStore.h"
+#include "support/StorePaths.h"
 #include "support/TestSupport.h"
 
 #include <gtest/gtest.h>

@@ -47,16 +47,5 @@ std::optional<std::filesystem::path> sharedRecording(const std::string& name) {
 std::filesystem::path outputDir() { return HUMWISE_TEST_OUTPUT_DIR; }
 std::filesystem::path testsDir() { return HUMWISE_TESTS_DIR; }
 
-void removeDatabase(const std::filesystem::path& db) {
-    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) std::filesystem::remove(db.string() + suffix);
-}
-
-std::filesystem::path freshDatabasePath(const std::string& folder, const std::string& name) {
-    const auto dir = outputDir() / folder;
-    std::filesystem::create_directories(dir);
-    const auto p = dir / name;
-    removeDatabase(p);
-    return p;
-}
 
 } // namespace humwise::test

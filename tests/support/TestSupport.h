@@ -25,11 +25,6 @@ std::optional<std::filesystem::path> sharedRecording(const std::string& name);
 std::filesystem::path outputDir();
 // The tests/ source folder (fixtures, reference scripts).
 std::filesystem::path testsDir();
-// Removes a database file and every file SQLite keeps beside it (-wal, -shm, -journal): a stale
-// journal left beside a new file of the same name would be "rolled back" into it.
-void removeDatabase(const std::filesystem::path& db);
-// outputDir()/folder/name, the folder created and any database there removed: a fresh store path.
-std::filesystem::path freshDatabasePath(const std::string& folder, const std::string& name);
 
 } // namespace humwise::test
 

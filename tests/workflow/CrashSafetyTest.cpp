@@ -94,7 +94,7 @@ Micros timeOf(const std::function<std::vector<std::string>()>& args) {
     return fastest;
 }
 
-void removeStore(const fs::path& db) { test::removeDatabase(db); }
+void removeStore(const fs::path& db) { storage::removeDatabaseFiles(db); }
 
 // A store file holding the fixture fleet and `rounds` imported walkdowns, checkpointed into one
 // file so that copies of it are complete stores.
