@@ -42,9 +42,11 @@ double synchronousSpeedRpm(double supplyHz, int poles) { return 120.0 * supplyHz
 std::optional<int> polesOf(const Nameplate& n) {
     if (n.poles && *n.poles >= 2 && *n.poles % 2 == 0) return n.poles;
     if (!(n.supplyHz > 0) || !(n.ratedSpeedRpm > 0)) return std::nullopt;
-    const int p = 2 * static_cast<int>(std::floor(60.0 * n.supplyHz / n.ratedSpeedRpm));
-    if (p < 2) return std::nullopt;
-    return p;
+    const double pairs = std::floor(60.0 * n.supplyHz / n.ratedSpeedRpm);
+    // Checked before the conversion: a pole count beyond any motor's would not fit an int either
+    // (a supply of 1e100 Hz from a damaged fleet file).
+    if (!(pairs >= 1) || pairs > kMaxPoles / 2) return std::nullopt;
+    return 2 * static_cast<int>(pairs);
 }
 
 std::optional<double> ratedSlip(const Nameplate& n) {
@@ -77,8 +79,8 @@ std::vector<ValidationIssue> validate(const Nameplate& n) {
     if (!(n.ratedPowerKw >= 0 && n.ratedPowerKw < 1e5)) bad("rated_power_kw", "rated power " + num(n.ratedPowerKw) + " kW is not plausible");
     if (!(n.ratedVoltageV >= 0 && n.ratedVoltageV < 1e5)) bad("rated_voltage_v", "rated voltage " + num(n.ratedVoltageV) + " V is not plausible");
     if (!(n.ratedCurrentA >= 0 && n.ratedCurrentA < 1e5)) bad("rated_current_a", "rated current " + num(n.ratedCurrentA) + " A is not plausible");
-    if (n.poles && (*n.poles < 2 || *n.poles % 2 != 0 || *n.poles > 64))
-        bad("poles", "a motor has an even number of poles from 2 to 64, not " + std::to_string(*n.poles));
+    if (n.poles && (*n.poles < 2 || *n.poles % 2 != 0 || *n.poles > kMaxPoles))
+        bad("poles", "a motor has an even number of poles from 2 to " + std::to_string(kMaxPoles) + ", not " + std::to_string(*n.poles));
     if (!(n.ratedSpeedRpm >= 0)) bad("rated_speed_rpm", "rated speed must not be negative");
     if (!n.poles && !(n.ratedSpeedRpm > 0)) bad("rated_speed_rpm", "give the rated speed or the number of poles");
     if (n.ratedSpeedRpm > 0 && n.supplyHz > 0) {
@@ -90,8 +92,11 @@ std::vector<ValidationIssue> validate(const Nameplate& n) {
             else if ((ns - n.ratedSpeedRpm) / ns > 0.25)
                 bad("rated_speed_rpm", "rated speed " + num(n.ratedSpeedRpm) + " r/min means a slip above 25 % for a " + std::to_string(*p) +
                                            "-pole motor at " + num(n.supplyHz) + " Hz (synchronous " + num(ns) + " r/min)");
-        } else {
+        } else if (60.0 * n.supplyHz / n.ratedSpeedRpm < 1) {
             bad("rated_speed_rpm", "rated speed " + num(n.ratedSpeedRpm) + " r/min is above the 2-pole synchronous speed at " + num(n.supplyHz) + " Hz");
+        } else {
+            bad("rated_speed_rpm", "rated speed " + num(n.ratedSpeedRpm) + " r/min at " + num(n.supplyHz) + " Hz would need more than " +
+                                       std::to_string(kMaxPoles) + " poles");
         }
     }
     if (n.rotorBars && (*n.rotorBars < 4 || *n.rotorBars > 500)) bad("rotor_bars", "rotor bar count " + std::to_string(*n.rotorBars) + " is not plausible");

@@ -95,9 +95,12 @@ std::vector<ValidationIssue> validate(const Bearing& bearing, const std::string&
 
 // Synchronous speed 120 f / P in r/min (REFERENCE.md 5).
 double synchronousSpeedRpm(double supplyHz, int poles);
+// The most poles a nameplate may give or imply (common practice: large low-speed motors stop
+// well below this).
+inline constexpr int kMaxPoles = 64;
 // Poles from the nameplate, or derived from the rated speed: the largest even P whose
 // synchronous speed still exceeds the rated speed (P = 2 floor(60 f / n)). nullopt when
-// neither is usable.
+// neither is usable, or when the derived P would exceed kMaxPoles.
 std::optional<int> polesOf(const Nameplate& nameplate);
 // Rated (full-load) slip (ns - n) / ns, when the nameplate allows it.
 std::optional<double> ratedSlip(const Nameplate& nameplate);

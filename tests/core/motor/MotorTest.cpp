@@ -89,6 +89,32 @@ TEST(Nameplate, PolesSynchronousSpeedAndSlip) {
     EXPECT_EQ(polesOf(n), 6);
 }
 
+// Found by the fleet-file fuzzer: a supply frequency of 6e129 Hz made the derived pole count
+// overflow its int conversion (undefined behaviour). Now no poles are derived beyond kMaxPoles,
+// and validation names both problems.
+TEST(Nameplate, AbsurdSupplyDerivesNoPolesAndIsRefused) {
+    Nameplate n;
+    n.supplyHz = 6.066e129;
+    n.ratedSpeedRpm = 3520;
+    EXPECT_EQ(polesOf(n), std::nullopt);
+    EXPECT_EQ(ratedSlip(n), std::nullopt);
+    n.supplyHz = 50;
+    n.ratedSpeedRpm = 60.0 * 50 / 32.5; // 32 pole pairs: 64 poles, the most allowed
+    EXPECT_EQ(polesOf(n), 64);
+    n.ratedSpeedRpm = 60.0 * 50 / 33.5; // 66 poles: none derived
+    EXPECT_EQ(polesOf(n), std::nullopt);
+    n.supplyHz = 6.066e129;
+    n.ratedSpeedRpm = 3520;
+    const auto issues = validate(n);
+    const auto has = [&](const std::string& field, const std::string& text) {
+        for (const auto& i : issues)
+            if (i.field == field && i.message.find(text) != std::string::npos) return true;
+        return false;
+    };
+    EXPECT_TRUE(has("nameplate.supply_hz", "not between 1 and 400 Hz"));
+    EXPECT_TRUE(has("nameplate.rated_speed_rpm", "would need more than 64 poles"));
+}
+
 TEST(Validation, ImpossibleBearingIsRefusedWithAClearMessage) {
     Motor m;
     m.tag = "P-101";
