@@ -868,7 +868,7 @@ Figures measure(const Options& o) {
     else if (!fs::exists(o.script)) f.scipySkipped = o.script.string() + " not found";
     else {
         std::cout << "scipy pipeline (" << o.python << ") ...\n";
-        f.scipy = runProgram({o.python, o.script.string(), (o.dir / "walkdown").string()},
+        f.scipy = runProgram({o.python, o.script.string(), (o.dir / "walkdown").string(), (o.dir / "fleet.json").string()},
                              {"OMP_NUM_THREADS=1", "OPENBLAS_NUM_THREADS=1", "MKL_NUM_THREADS=1"});
         require(*f.scipy, "scipy pipeline");
     }

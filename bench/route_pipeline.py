@@ -2,10 +2,12 @@
 """The route analysis a practitioner would script with numpy/scipy: the baseline bench_route
 times against Humwise's walkdown import (bench/README.md, "Route-scale import").
 
-Usage: route_pipeline.py WALKDOWN_FOLDER      (run single-threaded: OMP/OPENBLAS/MKL_NUM_THREADS=1)
+Usage: route_pipeline.py WALKDOWN_FOLDER FLEET_FILE   (run single-threaded: OMP/OPENBLAS/MKL_NUM_THREADS=1)
 
-Reads manifest.csv and every WAV it lists (scipy.io.wavfile), then per vibration channel
-(acceleration, g in the file):
+Reads the fleet file (JSON: each motor's nameplate and bearings), manifest.csv and every WAV it
+lists (scipy.io.wavfile), motor by motor: its current phases first (their supply frequency sets
+the motor's running speed, hence its envelope fmax), then per vibration channel (acceleration,
+g in the file):
   - velocity spectrum: Welch, Hann, ~0.25 Hz lines (the whole record when shorter than 4 s),
     50 % overlap, r.m.s. scale, integrated by dividing by j 2 pi f with a 2 Hz cut-off, up to
     min(fs / 2.56, 2 kHz)  (as core/diagnosis/VibrationAnalysis.cpp);
@@ -16,6 +18,9 @@ Reads manifest.csv and every WAV it lists (scipy.io.wavfile), then per vibration
     bands at least the envelope fmax wide, starting above 2 x fmax, not more than 40 dB below
     the record's average density;
   - squared envelope of the chosen band and its spectrum (Hann, ~0.5 Hz lines, up to fmax);
+  - envelope fmax per motor, as core/diagnosis/Diagnose.cpp derives it: 3.3 x the fastest of its
+    bearings' BPFI + 1 and 2 BSF + FTF (multiples of the synchronous speed at the measured supply
+    frequency), rounded up to 50 Hz, within 200-1000 Hz; 500 Hz without bearing data;
   - waveform statistics: r.m.s., peak, crest factor, kurtosis.
 Per current phase set (I-A, I-B, I-C of one motor):
   - supply frequency from phase A (Hann FFT peak near the nominal 50 Hz, parabolic interpolation);
@@ -28,13 +33,15 @@ Per current phase set (I-A, I-B, I-C of one motor):
 
 Where it does less than Humwise: no database (nothing is written: no raw-file copies, no
 indicators, spectra or findings stored, no transaction), no SHA-256 of the files, no quality
-checks (clipping, flat line, bias drift), no speed estimation, no diagnosis rules; the envelope
-fmax is a fixed 500 Hz where Humwise derives 200-1000 Hz from each motor's bearings (the fleet
-file); supply-frequency estimation is a plain FFT peak. Where it does more: nothing of note.
+checks (clipping, flat line, bias drift), no speed estimation, no diagnosis rules;
+supply-frequency estimation is a plain FFT peak. Where it does more: nothing of note. (Until
+2026-12-02 it used a fixed envelope fmax of 500 Hz: more kurtogram bands than Humwise cuts for
+the motors whose bearings give 550-1000 Hz, fewer for the one at 400 Hz.)
 The figure is therefore a lower bound on what the scripted equivalent costs.
 """
 
 import csv
+import json
 import math
 import os
 import sys
@@ -46,7 +53,6 @@ import scipy.signal
 import scipy.stats
 
 G = 9.80665
-ENVELOPE_FMAX_HZ = 500.0
 MAX_SLIP = 0.05
 NOMINAL_HZ = 50.0
 
@@ -56,6 +62,31 @@ def read_manifest(folder):
     with open(os.path.join(folder, "manifest.csv"), newline="") as f:
         lines = [line for line in f if not line.startswith("#")]
     return list(csv.DictReader(lines))
+
+
+def bearing_factors(b):
+    """FTF, BPFI, BSF in multiples of shaft speed from the geometry (core/motor/Motor.cpp)."""
+    c = b["element_diameter"] / b["pitch_diameter"] * math.cos(math.radians(b.get("contact_angle_deg", 0.0)))
+    n = b["rolling_elements"]
+    return 0.5 * (1 - c), 0.5 * n * (1 + c), b["pitch_diameter"] / (2 * b["element_diameter"]) * (1 - c * c)
+
+
+def envelope_fmax(motor, line_hz):
+    """The motor's envelope fmax (core/diagnosis/Diagnose.cpp, envelopeFmaxFor)."""
+    shaft_hz = line_hz / (motor["nameplate"]["poles"] / 2)
+    fastest = 0.0
+    for end in ("de", "nde"):
+        b = motor.get("bearings", {}).get(end)
+        if b and "rolling_elements" in b:
+            ftf, bpfi, bsf = bearing_factors(b)
+        elif b:
+            ftf, bpfi, bsf = b["ftf"], b["bpfi"], b["bsf"]
+        else:
+            continue
+        fastest = max(fastest, bpfi + 1.0, 2 * bsf + ftf)
+    if fastest == 0:
+        return 500.0
+    return min(1000.0, max(200.0, math.ceil(3.3 * fastest * shaft_hz / 50.0) * 50.0))
 
 
 def read_channel(folder, row):
@@ -117,13 +148,13 @@ def band_envelope(spectrum, fs, lo, hi, min_rate):
     return np.fft.ifft(z) * (m / n), fs * m / n
 
 
-def choose_band(acc, fs):
+def choose_band(acc, fs, fmax):
     spectrum = np.fft.rfft(acc - acc.mean())
     density = np.abs(spectrum) ** 2
     mean_density = density.mean()
     best = None
     n = len(acc)
-    for level, lo, hi in kurtogram_bands(fs, n, ENVELOPE_FMAX_HZ):
+    for level, lo, hi in kurtogram_bands(fs, n, fmax):
         i0, i1 = int(round(lo * n / fs)), int(round(hi * n / fs))
         if 10 * math.log10(density[i0:i1].mean() / mean_density + 1e-300) < -40:
             continue
@@ -135,17 +166,17 @@ def choose_band(acc, fs):
     return spectrum, best
 
 
-def envelope_spectrum(acc, fs):
-    spectrum, best = choose_band(acc, fs)
+def envelope_spectrum(acc, fs, fmax):
+    spectrum, best = choose_band(acc, fs, fmax)
     if best is None:
         return None
     _, lo, hi = best
     # Sampled at >= 2 x the band width and >= 2.56 fmax, as core/dsp/Envelope.cpp.
-    z, rate = band_envelope(spectrum, fs, lo, hi, max(2 * (hi - lo), 2.56 * ENVELOPE_FMAX_HZ))
+    z, rate = band_envelope(spectrum, fs, lo, hi, max(2 * (hi - lo), 2.56 * fmax))
     env = np.abs(z) ** 2
     nperseg = min(len(env), int(round(rate / 0.5)))
     f, p = scipy.signal.welch(env, rate, window="hann", nperseg=nperseg, noverlap=nperseg // 2, scaling="spectrum")
-    keep = f <= ENVELOPE_FMAX_HZ
+    keep = f <= fmax
     return lo, hi, f[keep], np.sqrt(p[keep])
 
 
@@ -155,11 +186,11 @@ def waveform_statistics(x):
     return rms, peak, peak / rms if rms > 0 else 0.0, float(scipy.stats.kurtosis(x, fisher=False))
 
 
-def analyse_vibration(acc_g, fs):
+def analyse_vibration(acc_g, fs, envelope_fmax_hz):
     acc = acc_g * G
     f, vel = velocity_spectrum(acc, fs)
     overall = band_rms(f, vel, 10.0, min(1000.0, f[-1]))
-    env = envelope_spectrum(acc, fs)
+    env = envelope_spectrum(acc, fs, envelope_fmax_hz) if fs / 2 > 2 * envelope_fmax_hz else None
     return overall, env, waveform_statistics(acc)
 
 
@@ -228,24 +259,33 @@ def analyse_currents(phases, fs):
 
 # ---- route -----------------------------------------------------------------------------
 
-def main(folder):
+def main(folder, fleet_file):
     t0 = time.perf_counter()
+    with open(fleet_file) as f:
+        fleet = {m["tag"]: m for m in json.load(f)["motors"]}
     rows = read_manifest(folder)
     motors = {}
     for row in rows:
         motors.setdefault(row["motor"], []).append(row)
     overall, supply = [], []
     for tag, points in motors.items():
+        motor = fleet[tag]
+        if "poles" not in motor["nameplate"]:
+            sys.exit(f"route_pipeline: motor {tag}: the fleet file gives no poles (the benchmark's fleet always does)")
+        line_hz = float(motor["nameplate"]["supply_hz"])
         currents, current_fs = [], None
         for row in points:
-            fs, x = read_channel(folder, row)
-            if row["quantity"] == "acceleration":
-                overall.append(analyse_vibration(x, fs)[0])
-            elif row["quantity"] == "current":
+            if row["quantity"] == "current":
+                current_fs, x = read_channel(folder, row)
                 currents.append(x)
-                current_fs = fs
         if currents:
-            supply.append(analyse_currents(currents, current_fs)[0])
+            line_hz = analyse_currents(currents, current_fs)[0]
+            supply.append(line_hz)
+        fmax = envelope_fmax(motor, line_hz)
+        for row in points:
+            if row["quantity"] == "acceleration":
+                fs, x = read_channel(folder, row)
+                overall.append(analyse_vibration(x, fs, fmax)[0])
     elapsed = time.perf_counter() - t0
     print(f"route_pipeline: {len(motors)} motors, {len(overall)} vibration channels, {len(supply)} phase sets "
           f"in {elapsed:.2f} s (numpy {np.__version__}, scipy {scipy.__version__}); "
@@ -253,6 +293,6 @@ def main(folder):
 
 
 if __name__ == "__main__":
-    if len(sys.argv) != 2:
+    if len(sys.argv) != 3:
         sys.exit(__doc__)
-    main(sys.argv[1])
+    main(sys.argv[1], sys.argv[2])
