@@ -4,6 +4,7 @@
 #include "core/util/Text.h"
 
 #include <cmath>
+#include <limits>
 
 namespace humwise::cli {
 
@@ -65,6 +66,14 @@ std::optional<long long> ParsedArgs::integer(const std::string& name) const {
     const auto d = text::parseInteger(*v);
     if (!d) throw UsageError("option '--" + name + "' needs a whole number, got '" + *v + "'");
     return d;
+}
+
+std::optional<int> ParsedArgs::count(const std::string& name) const {
+    const auto v = integer(name);
+    if (!v) return std::nullopt;
+    if (*v < std::numeric_limits<int>::min() || *v > std::numeric_limits<int>::max())
+        throw UsageError("option '--" + name + "' is far too large: " + std::to_string(*v));
+    return static_cast<int>(*v);
 }
 
 std::pair<double, double> parseRange(const std::string& t, const std::string& option) {

@@ -28,6 +28,9 @@ public:
     double number(const std::string& name, double fallback) const;          // any finite number
     std::optional<double> number(const std::string& name) const;
     std::optional<long long> integer(const std::string& name) const;         // whole number
+    // A whole number that fits an int (counts: poles, bars, vanes); a larger one is refused by
+    // name rather than wrapped around into a plausible value.
+    std::optional<int> count(const std::string& name) const;
 
 private:
     std::map<std::string, std::string> m_values;

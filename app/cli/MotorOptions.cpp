@@ -48,20 +48,22 @@ motor::Motor motorFromArgs(const ParsedArgs& a) {
     const auto line = a.number("line-hz");
     if (!line) throw UsageError("--line-hz is required (the supply frequency, e.g. 50 or 60)");
     m.nameplate.supplyHz = *line;
-    if (const auto p = a.integer("poles")) m.nameplate.poles = static_cast<int>(*p);
+    if (const auto p = a.count("poles")) m.nameplate.poles = *p;
     if (const auto r = a.number("rated-rpm")) m.nameplate.ratedSpeedRpm = *r;
     if (!m.nameplate.poles && !a.has("rated-rpm")) throw UsageError("--poles is required (or --rated-rpm to derive it)");
-    if (const auto bars = a.integer("rotor-bars")) m.nameplate.rotorBars = static_cast<int>(*bars);
-    if (const auto v = a.integer("vanes")) {
+    if (const auto bars = a.count("rotor-bars")) m.nameplate.rotorBars = *bars;
+    if (const auto v = a.count("vanes")) {
         m.driven.kind = motor::DrivenKind::Other;
-        m.driven.vanesOrBlades = static_cast<int>(*v);
+        m.driven.vanesOrBlades = *v;
     }
     if (a.has("bearing") && a.has("bearing-factors")) throw UsageError("give either --bearing or --bearing-factors, not both");
     if (const auto b = a.value("bearing")) {
         auto kv = keyValues(*b, "bearing");
         motor::BearingGeometry g;
         const double n = take(kv, "n", "bearing");
-        if (n != std::floor(n)) throw UsageError("--bearing: n (number of rolling elements) must be a whole number");
+        // The size check comes before the conversion: a double beyond int's range would not convert.
+        if (n != std::floor(n) || std::abs(n) > 1e6)
+            throw UsageError("--bearing: n (number of rolling elements) must be a whole number (3 to 200)");
         g.rollingElements = static_cast<int>(n);
         g.elementDiameter = take(kv, "d", "bearing");
         g.pitchDiameter = take(kv, "D", "bearing");

@@ -84,8 +84,11 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
     const std::size_t last = spectrum.bins().size() - 1;
     if (!(hiHz > loHz) || loHz < 0)
         throw std::invalid_argument("extractBand: the band must satisfy 0 <= lo < hi");
-    const auto kl = std::min<std::size_t>(last, static_cast<std::size_t>(std::ceil(loHz / df)));
-    const auto kh = std::min<std::size_t>(last, static_cast<std::size_t>(std::floor(hiHz / df)));
+    // Clamped while still floating point: converting a line number beyond any integer (hiHz far
+    // above Nyquist) would be undefined behaviour.
+    const auto lineAtOrBelow = [&](double k) { return static_cast<std::size_t>(std::min(k, static_cast<double>(last))); };
+    const auto kl = lineAtOrBelow(std::ceil(loHz / df));
+    const auto kh = lineAtOrBelow(std::floor(hiHz / df));
     if (kh <= kl) throw std::invalid_argument("extractBand: the band is narrower than one line or above Nyquist");
     const std::size_t width = kh - kl + 1;
     const std::size_t m = nextFastFftSize(std::max(width, minLength));

@@ -35,7 +35,12 @@ Result<EnvelopeResult, AnalysisError> envelopeSpectrum(const RecordSpectrum& rec
         return fail(AnalysisError{Code::InvalidRequest, "envelope: the band must satisfy 0 <= low < high <= fs/2"});
 
     SpectrumRequest sr = r.spectrum;
-    const double fmax = sr.fmaxHz.value_or(kDefaultEnvelopeFmaxHz);
+    const double askedFmax = sr.fmaxHz.value_or(kDefaultEnvelopeFmaxHz);
+    if (!(askedFmax > 0) || !std::isfinite(askedFmax))
+        return fail(AnalysisError{Code::InvalidRequest, "envelope: fmax must be > 0 Hz"});
+    // No envelope line lies above the record's Nyquist frequency (the band is no wider); a larger
+    // fmax would only ask for a longer band signal (and, absurdly large, more memory than exists).
+    const double fmax = std::min(askedFmax, fs / 2);
     sr.fmaxHz = fmax;
     // The (squared) envelope spans up to the band's width: sample at >= 2 x width and >= 2.56 fmax.
     const double df = record.lineSpacingHz();

@@ -27,6 +27,9 @@ Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& 
         const int fromLength = static_cast<int>(std::floor(std::log2(static_cast<double>(spectrum.length())))) - 7;
         maxLevel = std::max(1, std::min(8, fromLength));
     }
+    // The band count (at most 2^28) stays within an int; a deeper level's bands would be 4 lines
+    // wide only in a record of more than 2^31 samples (they are skipped below when narrower).
+    maxLevel = std::min(maxLevel, 28);
     Kurtogram result;
     result.best.kurtosis = -INFINITY;
     const double df = spectrum.lineSpacingHz();

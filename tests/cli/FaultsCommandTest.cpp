@@ -68,5 +68,23 @@ TEST(CliFaults, ImpossibleInputsAreUsageErrors) {
     EXPECT_NE(ball.err.find("smaller than the pitch diameter"), std::string::npos) << ball.err;
 }
 
+// Counts beyond an int are refused by name: 4294967300 poles once wrapped around to 4 and gave a
+// plausible table, and a rolling-element count of 1e300 did not convert at all (undefined).
+TEST(CliFaults, HugeCountsAreRefusedNotWrappedAround) {
+    const std::vector<std::pair<std::vector<std::string>, std::string>> cases = {
+        {{"faults", "--line-hz", "50", "--poles", "4294967300", "--speed-rpm", "1470"}, "'--poles' is far too large"},
+        {{"faults", "--line-hz", "50", "--poles", "4", "--speed-rpm", "1470", "--rotor-bars", "4294967324"},
+         "'--rotor-bars' is far too large"},
+        {{"faults", "--line-hz", "50", "--poles", "4", "--speed-rpm", "1470", "--vanes", "-4294967291"}, "'--vanes' is far too large"},
+        {{"faults", "--line-hz", "50", "--poles", "4", "--speed-rpm", "1470", "--bearing", "n=1e300,d=10,D=50"},
+         "n (number of rolling elements) must be a whole number"},
+    };
+    for (const auto& [args, message] : cases) {
+        const auto r = runCli(args);
+        EXPECT_EQ(r.exitCode, 2) << r.out;
+        EXPECT_NE(r.err.find(message), std::string::npos) << r.err;
+    }
+}
+
 } // namespace
 } // namespace humwise::cli

@@ -9,6 +9,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <limits>
 #include <numbers>
 #include <random>
 
@@ -59,6 +60,25 @@ TEST(Envelope, BandOutsideNyquistIsRefused) {
     EXPECT_EQ(envelopeSpectrum(x, 20000, r).error().code, AnalysisError::Code::InvalidRequest);
     EXPECT_EQ(envelopeSpectrum(std::vector<double>(10, 0.0), 20000, bandRequest(true)).error().code,
               AnalysisError::Code::RecordTooShort);
+}
+
+TEST(Envelope, FmaxMustBeFiniteAndIsCappedAtNyquist) {
+    const auto x = amSignal();
+    for (const double bad : {0.0, -5.0, std::nan(""), std::numeric_limits<double>::infinity()}) {
+        auto r = bandRequest(true);
+        r.spectrum.fmaxHz = bad;
+        const auto e = envelopeSpectrum(x, 20000, r);
+        ASSERT_FALSE(e.ok()) << "fmax " << bad;
+        EXPECT_EQ(e.error().code, AnalysisError::Code::InvalidRequest);
+    }
+    // 1e300 Hz once converted a line count beyond any integer (undefined behaviour); now it
+    // means "up to Nyquist" and the lines found are those of the plain request.
+    auto huge = bandRequest(true);
+    huge.spectrum.fmaxHz = 1e300;
+    const auto capped = envelopeSpectrum(x, 20000, huge);
+    ASSERT_TRUE(capped.ok()) << capped.error().message;
+    EXPECT_NEAR(capped.value().spectrum.values[37], 1.000, 1e-3);
+    EXPECT_LE(capped.value().spectrum.frequencyHz(capped.value().spectrum.lineCount() - 1), 10000.0 + 1e-9);
 }
 
 // Bearing-like impacts (repetition 97 Hz with 1 % random jitter) ringing a 3.2 kHz resonance, in
