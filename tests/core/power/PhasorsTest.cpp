@@ -123,29 +123,32 @@ TEST(Phasor, NonFiniteAndOverflowingSamplesAreNamed) {
     }
 }
 
-// The sums of x against each tone run block by block (Phasors.cpp): with few tones several
-// 4096-sample blocks side by side, with many one at a time, and a short last block. A record of
-// 200 003 samples (48 full blocks and a part of 3 samples, whose omission would move the fit
-// by about 1e-5) and tone sets on both sides of that switch: every
-// path must be exact to rounding, at low frequency too (0.5 Hz at 10 kHz, where the plain
-// Goertzel recursion loses digits; Reinsch's form must not).
+// The sums of x against each tone run block by block (Phasors.cpp): with fewer than 4 tones, 12
+// blocks of 4096 samples side by side in vector lanes; with more, 8 tones to the lanes and 3
+// blocks side by side; then single blocks, the last one short. Records of 200 003 samples (48 full
+// blocks and a part of 3 samples, whose omission would move the fit by about 1e-5), 28 677 (7
+// full blocks: fewer than 12 side by side) and 8 292 (2 full blocks: fewer than 3), and tone
+// counts on both sides of each switch and of the 8-tone groups: every path must be exact to
+// rounding, at low frequency too (0.5 Hz at 10 kHz, where the plain Goertzel recursion loses
+// digits; Reinsch's form must not).
 TEST(Phasor, LongRecordsAreExactWithFewAndManyTonesAndAtLowFrequency) {
     const double fs = 10000;
-    const std::size_t n = 200003;
-    for (const std::size_t tones : {1u, 3u, 7u, 8u, 20u}) {
-        std::vector<double> freqs, x(n, 0.0);
-        std::vector<Complex> truth;
-        for (std::size_t i = 0; i < tones; ++i) {
-            freqs.push_back(i == 0 ? 0.5 : 49.93 * static_cast<double>(i) + 0.37);
-            truth.push_back(polarDeg(1.0 / static_cast<double>(i + 1), 17.0 * static_cast<double>(i) - 40.0));
-            test::add(x, waveform(truth.back(), freqs.back(), fs, n));
+    for (const std::size_t n : {200003u, 28677u, 8292u})
+        for (const std::size_t tones : {1u, 2u, 3u, 4u, 7u, 8u, 9u, 20u, 40u}) {
+            std::vector<double> freqs, x(n, 0.0);
+            std::vector<Complex> truth;
+            const double lowest = n >= 20000 ? 0.5 : 3.1; // at least one period in the record
+            for (std::size_t i = 0; i < tones; ++i) {
+                freqs.push_back(i == 0 ? lowest : 49.93 * static_cast<double>(i) + 0.37);
+                truth.push_back(polarDeg(1.0 / static_cast<double>(i + 1), 17.0 * static_cast<double>(i) - 40.0));
+                test::add(x, waveform(truth.back(), freqs.back(), fs, n));
+            }
+            const ToneFit fit = fitTones(x, fs, freqs);
+            for (std::size_t i = 0; i < tones; ++i)
+                EXPECT_NEAR(std::abs(toComplex(fit.phasors[i]) - truth[i]), 0.0, 1e-10)
+                    << n << " samples, " << tones << " tones, tone " << i << " at " << freqs[i] << " Hz";
+            EXPECT_NEAR(fit.residualRms, 0.0, 1e-6) << n << " samples, " << tones << " tones";
         }
-        const ToneFit fit = fitTones(x, fs, freqs);
-        for (std::size_t i = 0; i < tones; ++i) {
-            EXPECT_NEAR(std::abs(toComplex(fit.phasors[i]) - truth[i]), 0.0, 1e-10) << tones << " tones, tone " << i << " at " << freqs[i] << " Hz";
-        }
-        EXPECT_NEAR(fit.residualRms, 0.0, 1e-6) << tones << " tones";
-    }
 }
 
 void expectPhasor(Complex z, double magnitude, double degrees, double tol, const char* what) {
