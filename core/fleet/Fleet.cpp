@@ -1,5 +1,6 @@
 #include "core/fleet/Fleet.h"
 
+#include <map>
 #include <set>
 
 namespace humwise::fleet {
@@ -21,11 +22,11 @@ std::vector<FleetIssue> validate(const Fleet& f) {
     if (f.site.empty()) out.push_back({"site", "the site needs a name"});
     std::set<std::string> areas(f.areas.begin(), f.areas.end());
     if (areas.size() != f.areas.size()) out.push_back({"areas", "an area name appears twice"});
-    std::set<std::string> tags;
+    std::map<std::string, const MotorDefinition*> byTag; // the first motor of each tag, for the routes below
     for (std::size_t i = 0; i < f.motors.size(); ++i) {
         const auto& m = f.motors[i];
         const std::string where = "motors[" + std::to_string(i) + "] " + m.motor.tag;
-        if (!tags.insert(m.motor.tag).second) out.push_back({where, "motor tag '" + m.motor.tag + "' appears twice"});
+        if (!byTag.emplace(m.motor.tag, &m).second) out.push_back({where, "motor tag '" + m.motor.tag + "' appears twice"});
         if (!areas.count(m.area)) out.push_back({where, "area '" + m.area + "' is not one of the site's areas"});
         for (const auto& issue : motor::validate(m.motor)) out.push_back({where + " " + issue.field, issue.message});
         std::set<std::string> names;
@@ -51,7 +52,8 @@ std::vector<FleetIssue> validate(const Fleet& f) {
         const std::string where = "routes[" + std::to_string(r) + "] " + route.name;
         if (!routeNames.insert(route.name).second) out.push_back({where, "route name appears twice"});
         for (const auto& rp : route.points) {
-            const auto* m = f.motor(rp.motorTag);
+            const auto it = byTag.find(rp.motorTag); // not f.motor(): a route of every point of a large fleet
+            const MotorDefinition* m = it == byTag.end() ? nullptr : it->second;
             if (!m) out.push_back({where, "motor '" + rp.motorTag + "' is not in the fleet"});
             else if (!m->point(rp.pointName)) out.push_back({where, "motor '" + rp.motorTag + "' has no point '" + rp.pointName + "'"});
         }
