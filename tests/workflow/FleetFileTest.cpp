@@ -57,6 +57,9 @@ TEST(FleetFile, BrokenFilesNameTheLineAndTheField) {
     s.replace(s.find("\"P-1/DE-H\""), 10, "\"P-7/DE-H\"");
     expectError(s, "motor 'P-7' is not in the fleet");
     s = good;
+    s.replace(s.find("\"P-1/DE-H\""), 10, "\"P-1/XX-H\"");
+    expectError(s, "motor 'P-1' has no point 'XX-H'");
+    s = good;
     s.replace(s.find("\"unit\": \"g\""), 11, "\"unit\": \"A\"");
     expectError(s, "is not a unit of acceleration");
     s = good;
