@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <map>
+#include <set>
 
 namespace humwise::workflow {
 
@@ -30,11 +31,20 @@ std::vector<MotorStatus> fleetStatus(storage::FleetStore& store, std::optional<s
         if (roundId && r.id == *roundId) break;
     }
     std::reverse(upTo.begin(), upTo.end());
-    std::map<std::int64_t, std::vector<storage::RoundMotorRow>> analysed;
-    for (const auto& r : upTo) analysed[r.id] = store.roundMotors(r.id);
-    const auto hasMotor = [&](std::int64_t id, const std::string& tag) {
-        const auto& rows = analysed[id];
-        return std::any_of(rows.begin(), rows.end(), [&](const storage::RoundMotorRow& x) { return x.motorTag == tag; });
+    // Looked up per motor below: sets of tags per round and each round's flagged recordings by
+    // motor, each read from the store once (per motor, a round of 1000 motors read its 7000
+    // recordings 1000 times).
+    std::map<std::int64_t, std::set<std::string>> analysed;
+    for (const auto& r : upTo)
+        for (const auto& row : store.roundMotors(r.id)) analysed[r.id].insert(row.motorTag);
+    const auto hasMotor = [&](std::int64_t id, const std::string& tag) { return analysed[id].count(tag) > 0; };
+    std::map<std::int64_t, std::map<std::string, std::vector<std::string>>> flagged; // round -> motor -> "point (flags)"
+    const auto flaggedIn = [&](std::int64_t id) -> const std::map<std::string, std::vector<std::string>>& {
+        auto [it, fresh] = flagged.try_emplace(id);
+        if (fresh)
+            for (const auto& rec : store.recordings(id))
+                if (!rec.quality.empty()) it->second[rec.motorTag].push_back(rec.pointName + " (" + rec.quality + ")");
+        return it->second;
     };
     const auto worstOf = [](const std::vector<storage::FindingRow>& f) {
         int w = 0;
@@ -63,8 +73,8 @@ std::vector<MotorStatus> fleetStatus(storage::FleetStore& store, std::optional<s
             s.findings = store.findings(*latest, m.motor.tag);
             std::stable_sort(s.findings.begin(), s.findings.end(), [](const auto& a, const auto& b) { return a.finding.severity > b.finding.severity; });
             s.worstSeverity = worstOf(s.findings);
-            for (const auto& rec : store.recordings(*latest))
-                if (rec.motorTag == m.motor.tag && !rec.quality.empty()) s.flaggedPoints.push_back(rec.pointName + " (" + rec.quality + ")");
+            const auto& byMotor = flaggedIn(*latest);
+            if (const auto it = byMotor.find(m.motor.tag); it != byMotor.end()) s.flaggedPoints = it->second;
         }
         if (previous) {
             const auto before = store.findings(*previous, m.motor.tag);
