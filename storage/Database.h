@@ -139,10 +139,10 @@ private:
 // Synchronous EXTRA while it lasts: FULL syncs the journal before the file is written and the
 // file before the commit, and EXTRA also syncs the folder once the journal is deleted (the
 // deletion is the commit), so that a power cut right after the commit cannot bring the journal
-// back and undo the round (https://www.sqlite.org/pragma.html#pragma_synchronous). If the process dies inside the
-// transaction, the journal left beside the store is rolled back by the next connection that
-// opens it for writing, which also puts the log back (Database's constructor); a read-only
-// connection cannot, and says so.
+// back and undo the round (https://www.sqlite.org/pragma.html#pragma_synchronous). If the
+// process dies inside the transaction, the journal left beside the store is rolled back by the
+// next connection that opens it for writing, which also puts the log back (Database's
+// constructor); a read-only connection cannot, and says so.
 class SoleWriterJournal {
 public:
     explicit SoleWriterJournal(Database& db); // never throws for a store in use: taken() is false

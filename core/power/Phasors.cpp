@@ -49,7 +49,8 @@ Complex dirichletSum(double alpha, std::size_t count) {
 //   each block's sample broadcast to its lanes;
 // - blocks across the lanes (few tones): one tone, kLaneBlocks blocks in kLaneBlocks / 4 vectors,
 //   each lane reading its own block.
-// Both keep 6 vectors of state (12 of the 16 AVX registers with their lambdas and samples).
+// The first keeps 12 vectors of state (15 of the 16 AVX registers with its two lambdas and the
+// sample), the second 6.
 using Lanes = double __attribute__((vector_size(32)));
 constexpr std::size_t kToneLanes = 8;
 constexpr std::size_t kToneBlocks = 3;

@@ -19,11 +19,8 @@ namespace fs = std::filesystem;
 const std::vector<std::string> kAbsurd = {"1e300", "-1e300", "1e-300", "0", "-1", "9223372036854775807", "nan"};
 
 fs::path floatWav(const std::string& name, const std::vector<double>& x, std::uint32_t rate) {
-    test::WavSpec spec;
-    spec.encoding = test::WavEncoding::Float32;
-    spec.sampleRate = rate;
     const auto path = test::outputDir() / "cli" / name;
-    test::writeBytes(path, test::makeWav(spec, x));
+    test::writeBytes(path, test::makeFloatWav(x, rate));
     return path;
 }
 

@@ -30,12 +30,8 @@ fs::path fixturePath(const std::string& name) { return test::outputDir() / "cli"
 
 // A one-channel float WAV holding `x`.
 fs::path writeFloatWav(const std::string& name, const std::vector<double>& x, std::uint32_t rate, std::uint16_t channels = 1) {
-    test::WavSpec spec;
-    spec.encoding = test::WavEncoding::Float32;
-    spec.channels = channels;
-    spec.sampleRate = rate;
     const auto path = fixturePath(name);
-    test::writeBytes(path, test::makeWav(spec, x));
+    test::writeBytes(path, test::makeFloatWav(x, rate, channels));
     return path;
 }
 

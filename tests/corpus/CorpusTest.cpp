@@ -96,11 +96,7 @@ std::vector<double> vibration(double seconds = 2.0, double rate = 12800) {
 }
 
 Bytes floatWav(const std::vector<double>& x, std::uint32_t rate = 12800, std::uint16_t channels = 1) {
-    test::WavSpec w;
-    w.encoding = WavEncoding::Float32;
-    w.sampleRate = rate;
-    w.channels = channels;
-    return test::makeWav(w, x);
+    return test::makeFloatWav(x, rate, channels);
 }
 
 Bytes pcm16Samples(std::size_t n) {

@@ -78,13 +78,9 @@ std::string writeWalkdown(const fs::path& folder, const WalkdownSpec& spec) {
             v.seed = seed++;
             auto a = synthAcceleration(v);
             for (double& x : a) x /= 9.80665; // written in g
-            WavSpec w;
-            w.encoding = WavEncoding::Float32;
-            w.sampleRate = 12800;
-            w.channels = 1;
             const std::string file = m.motor.tag + "/" + name + ".wav";
             fs::create_directories(folder / m.motor.tag);
-            writeBytes(folder / file, makeWav(w, a));
+            writeBytes(folder / file, makeFloatWav(a, 12800));
             manifest += file + ",1," + m.motor.tag + "," + name + "\n";
         }
         SyntheticCurrent c;
@@ -98,12 +94,8 @@ std::string writeWalkdown(const fs::path& folder, const WalkdownSpec& spec) {
         std::vector<double> interleaved;
         for (std::size_t i = 0; i < phases[0].size(); ++i)
             for (int p = 0; p < 3; ++p) interleaved.push_back(phases[static_cast<std::size_t>(p)][i]);
-        WavSpec w;
-        w.encoding = WavEncoding::Float32;
-        w.sampleRate = 2500;
-        w.channels = 3;
         const std::string file = m.motor.tag + "/current.wav";
-        writeBytes(folder / file, makeWav(w, interleaved));
+        writeBytes(folder / file, makeFloatWav(interleaved, 2500, 3));
         for (int p = 0; p < 3; ++p) manifest += file + "," + std::to_string(p + 1) + "," + m.motor.tag + ",I-" + static_cast<char>('A' + p) + "\n";
     }
     if (spec.writeManifest) {

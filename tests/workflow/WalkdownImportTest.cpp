@@ -162,12 +162,7 @@ std::vector<BadCase> badCases() {
     return {
         {"truncated", [](const fs::path& f) { fs::resize_file(f / "P-1/DE-V.wav", 1000); }, "P-1/DE-V.wav", "unreadable"},
         {"wrong_rate",
-         [](const fs::path& f) {
-             test::WavSpec w;
-             w.encoding = test::WavEncoding::Float32;
-             w.sampleRate = 1000;
-             test::writeBytes(f / "P-2/DE-H.wav", test::makeWav(w, test::sine(0.1, 25, 1000, 4000)));
-         },
+         [](const fs::path& f) { test::writeBytes(f / "P-2/DE-H.wav", test::makeFloatWav(test::sine(0.1, 25, 1000, 4000), 1000)); },
          "P-2/DE-H.wav", "wrong_rate"},
         {"unknown_point", [](const fs::path& f) { appendManifest(f, "P-1/DE-H.wav,1,P-1,XX-H"); }, "P-1/DE-H.wav", "unknown_point"},
         {"duplicate", [](const fs::path& f) { appendManifest(f, "P-1/DE-V.wav,1,P-1,DE-V"); }, "P-1/DE-V.wav", "duplicate"},

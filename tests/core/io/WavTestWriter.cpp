@@ -144,6 +144,14 @@ Bytes makeWav(const WavSpec& spec, std::span<const double> interleaved) {
     return riffFile(chunks);
 }
 
+Bytes makeFloatWav(std::span<const double> interleaved, std::uint32_t sampleRate, std::uint16_t channels) {
+    WavSpec spec;
+    spec.encoding = WavEncoding::Float32;
+    spec.sampleRate = sampleRate;
+    spec.channels = channels;
+    return makeWav(spec, interleaved);
+}
+
 // Written beside the target and renamed into place, so that tests running in parallel
 // processes (ctest -j) never read a half-written fixture.
 void writeBytes(const std::filesystem::path& path, std::span<const std::byte> bytes) {

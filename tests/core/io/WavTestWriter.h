@@ -69,6 +69,8 @@ struct WavSpec {
 WavFormat formatOf(const WavSpec& spec);
 // A complete, valid file: fmt, the extra chunks, data.
 Bytes makeWav(const WavSpec& spec, std::span<const double> interleaved);
+// The plain case most tests want: 32-bit float samples, written as they are, no extra chunks.
+Bytes makeFloatWav(std::span<const double> interleaved, std::uint32_t sampleRate, std::uint16_t channels = 1);
 
 void writeBytes(const std::filesystem::path& path, std::span<const std::byte> bytes);
 void writeText(const std::filesystem::path& path, const std::string& text);
