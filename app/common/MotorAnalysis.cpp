@@ -20,14 +20,15 @@ std::optional<Direction> directionOf(const std::string& s) {
     return std::nullopt;
 }
 
-// Collects the phases of one quantity in A, B, C (or AB, BC, CA) order; all must share rate and length.
+// Collects the phases of one quantity in A, B, C (or AB, BC, CA) order, moving their samples in;
+// all must share rate and length.
 template <class Input>
-std::optional<Input> phaseSet(const fleet::MotorDefinition& m, const std::vector<PointRecording>& recs, Quantity q, std::vector<std::string>& notes) {
+std::optional<Input> phaseSet(const fleet::MotorDefinition& m, std::vector<PointRecording>& recs, Quantity q, std::vector<std::string>& notes) {
     static const std::vector<std::string> phaseOrder{"A", "B", "C", "AB", "BC", "CA"};
-    std::vector<const PointRecording*> chosen;
+    std::vector<PointRecording*> chosen;
     std::string first;
     for (const auto& phase : phaseOrder)
-        for (const auto& r : recs) {
+        for (auto& r : recs) {
             const auto* p = m.point(r.pointName);
             if (!p || p->quantity != q || p->phase != phase || !r.usable) continue;
             if (!chosen.empty() && (r.sampleRateHz != chosen.front()->sampleRateHz || r.samples.size() != chosen.front()->samples.size())) {
@@ -40,7 +41,7 @@ std::optional<Input> phaseSet(const fleet::MotorDefinition& m, const std::vector
     Input in;
     in.name = chosen.front()->pointName;
     in.sampleRateHz = chosen.front()->sampleRateHz;
-    for (const auto* r : chosen) in.phases.push_back(r->samples);
+    for (auto* r : chosen) in.phases.push_back(std::move(r->samples));
     if constexpr (std::is_same_v<Input, VoltageInput>) in.lineToLine = m.point(chosen.front()->pointName)->phase.size() == 2;
     return in;
 }
@@ -53,12 +54,12 @@ std::vector<float> toFloats(const std::vector<double>& v, double scale) {
 
 } // namespace
 
-MotorAnalysis analyseMotor(const fleet::MotorDefinition& m, const std::vector<PointRecording>& recs) {
+MotorAnalysis analyseMotor(const fleet::MotorDefinition& m, std::vector<PointRecording>& recs) {
     MotorAnalysis out;
     out.motorTag = m.motor.tag;
     DiagnosisInput in;
     in.motor = m.motor;
-    for (const auto& r : recs) {
+    for (auto& r : recs) {
         const auto* p = m.point(r.pointName);
         if (!p) continue;
         if (!in.measuredSpeedRpm && r.speedRpm) in.measuredSpeedRpm = r.speedRpm;
@@ -75,7 +76,7 @@ MotorAnalysis analyseMotor(const fleet::MotorDefinition& m, const std::vector<Po
             v.direction = *dir;
             v.quantity = r.quantity;
             v.sampleRateHz = r.sampleRateHz;
-            v.samples = r.samples;
+            v.samples = std::move(r.samples);
             in.vibration.push_back(std::move(v));
         }
     }

@@ -32,9 +32,11 @@ struct MotorAnalysis {
     std::vector<std::string> notes;
 };
 
-// Pure: builds the diagnosis input from the point definitions and runs it (throws
-// std::invalid_argument when nothing of the motor is usable).
-MotorAnalysis analyseMotor(const fleet::MotorDefinition& motor, const std::vector<PointRecording>& recordings);
+// Builds the diagnosis input from the point definitions and runs it (throws std::invalid_argument
+// when nothing of the motor is usable). The samples of the recordings it uses are moved into the
+// input, not copied - they are most of a motor's memory in flight - and are gone when it returns;
+// the recordings keep everything else (ids, names) for storeAnalysis. Otherwise pure.
+MotorAnalysis analyseMotor(const fleet::MotorDefinition& motor, std::vector<PointRecording>& recordings);
 
 // Writes one motor's products into the open transaction of `store`.
 void storeAnalysis(storage::FleetStore& store, std::int64_t roundId, const MotorAnalysis& analysis,
