@@ -259,9 +259,13 @@ std::vector<Planned> planRecordings(const fs::path& folder, const fs::path& mani
 
 // The work on one motor (its plan entries): read each of its files once, hash it, check every
 // recording in it and, when `analyse` and nothing is lost yet, analyse the motor. Sets `lost`
-// when a recording is bad and bad ones are not skipped. Runs on a worker thread: it writes only
-// its own plan entries.
+// when a recording is bad and bad ones are not skipped. Runs on a worker thread and writes nothing
+// shared: the entries it checked come back in `checked`, and the writer copies them into the plan.
+// The copy is deliberate: a string made here (a file's 64-character hash) lives in this worker's
+// malloc arena, and thousands of them kept for the whole import pinned pages all over the
+// workers' arenas - the resident size crept up through a 1000-motor route.
 struct MotorWork {
+    std::vector<Planned> checked;                       // the motor's entries, hash, format, rate and quality filled in
     std::vector<std::optional<ImportProblem>> problems; // per entry of the motor
     std::vector<std::size_t> good;                      // the good entries' plan indices,
     std::vector<PointRecording> recordings;             // their recordings
@@ -269,7 +273,7 @@ struct MotorWork {
     std::optional<MotorAnalysis> analysis;
 };
 
-MotorWork checkAndAnalyse(std::vector<Planned>& plan, const std::vector<std::size_t>& entries, const fleet::MotorDefinition& motor, bool analyse,
+MotorWork checkAndAnalyse(const std::vector<Planned>& plan, const std::vector<std::size_t>& entries, const fleet::MotorDefinition& motor, bool analyse,
                           bool skipBad, std::atomic<bool>& lost) {
     MotorWork w;
     struct File {
@@ -278,7 +282,7 @@ MotorWork checkAndAnalyse(std::vector<Planned>& plan, const std::vector<std::siz
     };
     std::map<fs::path, File> files; // each file read and hashed once, whatever its channels
     for (std::size_t i : entries) {
-        Planned& p = plan[i];
+        Planned p = plan[i];
         auto& file = files[p.path];
         std::optional<ImportProblem> problem;
         if (!file.bytes) {
@@ -300,6 +304,7 @@ MotorWork checkAndAnalyse(std::vector<Planned>& plan, const std::vector<std::siz
             lost = true;
         }
         w.problems.push_back(std::move(problem));
+        w.checked.push_back(std::move(p));
     }
     if (analyse && !lost && !w.good.empty()) {
         try {
@@ -437,6 +442,7 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
         inOrder(motors.size(), workerThreads(options.threads), workerThreads(options.threads) + 1, work, [&](std::size_t m, MotorWork w) {
             for (std::size_t k = 0; k < entriesOf[m].size(); ++k) {
                 Planned& p = plan[entriesOf[m][k]];
+                p = w.checked[k]; // copied, not moved: allocated on this thread (MotorWork)
                 if (!report(options.progress, done++, plan.size(), "checking " + p.match.file)) throw Cancelled{};
                 if (w.problems[k]) {
                     rep.bad.push_back(*w.problems[k]);
