@@ -153,8 +153,14 @@ Statement& Statement::bind(int i, std::string_view t) {
     check(sqlite3_bind_text(m_stmt, i, t.data(), static_cast<int>(t.size()), SQLITE_TRANSIENT), "bind");
     return *this;
 }
+// An empty span may have no data pointer, and SQLite binds a null pointer as NULL, not as an empty
+// blob: a zero-length blob is bound as such.
 Statement& Statement::bindBlob(int i, std::span<const std::byte> b) {
-    check(sqlite3_bind_blob64(m_stmt, i, b.data(), b.size(), SQLITE_TRANSIENT), "bind");
+    check(b.empty() ? sqlite3_bind_zeroblob(m_stmt, i, 0) : sqlite3_bind_blob64(m_stmt, i, b.data(), b.size(), SQLITE_TRANSIENT), "bind");
+    return *this;
+}
+Statement& Statement::bindBlobInPlace(int i, std::span<const std::byte> b) {
+    check(b.empty() ? sqlite3_bind_zeroblob(m_stmt, i, 0) : sqlite3_bind_blob64(m_stmt, i, b.data(), b.size(), SQLITE_STATIC), "bind");
     return *this;
 }
 Statement& Statement::bindNull(int i) {

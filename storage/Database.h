@@ -71,6 +71,9 @@ public:
     Statement& bind(int index, const char* text) { return bind(index, std::string_view(text)); }
     Statement& bind(int index, const std::string& text) { return bind(index, std::string_view(text)); }
     Statement& bindBlob(int index, std::span<const std::byte> bytes);
+    // Without SQLite's copy (SQLITE_STATIC), for large blobs: the bytes must stay valid until this
+    // statement is gone or the parameter is bound again.
+    Statement& bindBlobInPlace(int index, std::span<const std::byte> bytes);
     Statement& bindNull(int index);
     template <class T>
     Statement& bind(int index, const std::optional<T>& v) { return v ? bind(index, *v) : bindNull(index); }

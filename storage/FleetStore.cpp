@@ -361,8 +361,10 @@ std::vector<RoundRow> FleetStore::rounds() {
 }
 
 void FleetStore::storeSourceFile(const std::string& hash, std::span<const std::byte> bytes) {
+    // Bound in place: the statement goes before `bytes` can (a raw file is up to megabytes, copied
+    // once more for nothing otherwise).
     auto s = m_db->prepare("INSERT OR IGNORE INTO source_files(hash, size, bytes) VALUES (?1, ?2, ?3)");
-    s.bind(1, hash).bind(2, static_cast<std::int64_t>(bytes.size())).bindBlob(3, bytes).run();
+    s.bind(1, hash).bind(2, static_cast<std::int64_t>(bytes.size())).bindBlobInPlace(3, bytes).run();
 }
 
 std::vector<std::byte> FleetStore::sourceFile(const std::string& hash) {

@@ -58,6 +58,36 @@ std::uintmax_t sizeOr0(const fs::path& p) {
     return ec ? 0 : n;
 }
 
+// bindBlobInPlace hands SQLite the caller's bytes without a copy: what is stored is exactly
+// them, large (overflow pages) or empty (an empty blob, not NULL), and a bound parameter can be
+// bound again. bindBlob stores an empty blob as empty too.
+TEST(Statement, BlobBoundInPlaceIsStoredExactly) {
+    const auto p = freshPath("blob-in-place.db");
+    makeStore(p);
+    Database db(p);
+    std::vector<std::byte> big(700 * 1024 + 13);
+    for (std::size_t i = 0; i < big.size(); ++i) big[i] = static_cast<std::byte>((i * 131u + 7u) % 251u);
+    const std::vector<std::byte> empty;
+    {
+        auto s = db.prepare("INSERT INTO raw(id, bytes) VALUES (?1, ?2)");
+        s.bind(1, 10).bindBlobInPlace(2, big).run();
+        s.reset();
+        s.bind(1, 11).bindBlobInPlace(2, empty).run();
+    }
+    auto read = db.prepare("SELECT bytes FROM raw WHERE id = ?1");
+    ASSERT_TRUE(read.bind(1, 10).step());
+    EXPECT_EQ(read.blob(0), big);
+    read.reset();
+    ASSERT_TRUE(read.bind(1, 11).step());
+    EXPECT_TRUE(read.blob(0).empty());
+    db.prepare("INSERT INTO raw(id, bytes) VALUES (12, ?1)").bindBlob(1, empty).run();
+    auto type = db.prepare("SELECT typeof(bytes) FROM raw WHERE id IN (11, 12)");
+    for (int row = 0; row < 2; ++row) {
+        ASSERT_TRUE(type.step());
+        EXPECT_EQ(type.text(0), "blob");
+    }
+}
+
 TEST(SoleWriterJournal, TakenWhenAloneWritesOnceAndGivesTheLogBack) {
     const auto p = freshPath("sole-alone.db");
     makeStore(p);
