@@ -1,6 +1,7 @@
 #include "app/common/Walkdown.h"
 
 #include "app/common/InOrder.h"
+#include "app/common/MemoryRelease.h"
 #include "app/common/MotorAnalysis.h"
 #include "core/dsp/Quality.h"
 #include "core/io/FileBytes.h"
@@ -11,9 +12,6 @@
 
 #include <algorithm>
 #include <atomic>
-#ifdef __GLIBC__
-#include <malloc.h>
-#endif
 #include <chrono>
 #include <deque>
 #include <future>
@@ -129,18 +127,6 @@ bool report(const ProgressCallback& cb, std::size_t done, std::size_t total, con
     return !cb || cb({done, total, stage});
 }
 
-// Hands the memory freed by the motor just stored back to the system. glibc keeps freed blocks
-// in per-thread arenas for reuse; over a route of hundreds of motors, analysed on threads that
-// come and go, the retained blocks would add up to more than the motors in flight need.
-void releaseFreedMemory() {
-#ifdef __GLIBC__
-    malloc_trim(0);
-#endif
-}
-
-// Motors stored between two releases: after every motor the returned pages fault back in (a
-// third slower in a 1000-motor import), too seldom and glibc's retained blocks add up.
-constexpr std::size_t kReleaseEvery = 16;
 
 // Re-analyses the motors of one round in parallel (loading their recordings in the workers) and
 // stores the products from this thread, in fleet order.
@@ -163,6 +149,7 @@ std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, cons
         return d;
     };
     std::size_t analysed = 0;
+    MemoryRelease memory;
     // One more motor in flight than workers: they keep analysing while this thread (SQLite's one
     // writer) stores.
     inOrder(motorTags.size(), workerThreads(threads), workerThreads(threads) + 1, work, [&](std::size_t i, Done d) {
@@ -175,7 +162,7 @@ std::size_t analyseMotors(storage::FleetStore& store, std::int64_t roundId, cons
         }
         if (!report(progress, i + 1, motorTags.size(), "analysing " + motorTags[i])) throw Cancelled{};
         d = {}; // this motor's buffers go before the release, not after it
-        if (i % kReleaseEvery == kReleaseEvery - 1) releaseFreedMemory();
+        memory.afterMotor();
     });
     return analysed;
 }
@@ -439,6 +426,7 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
 
         std::vector<bool> isGood(plan.size(), false);
         std::size_t done = 0;
+        MemoryRelease memory;
         inOrder(motors.size(), workerThreads(options.threads), workerThreads(options.threads) + 1, work, [&](std::size_t m, MotorWork w) {
             for (std::size_t k = 0; k < entriesOf[m].size(); ++k) {
                 Planned& p = plan[entriesOf[m][k]];
@@ -457,7 +445,7 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
                 if (!report(options.progress, done, plan.size(), "analysing " + motors[m]->motor.tag)) throw Cancelled{};
             }
             w = {}; // this motor's buffers go before the release, not after it
-            if (m % kReleaseEvery == kReleaseEvery - 1) releaseFreedMemory();
+            memory.afterMotor();
         });
         std::vector<const Planned*> good;
         for (std::size_t i = 0; i < plan.size(); ++i)
