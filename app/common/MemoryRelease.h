@@ -4,12 +4,12 @@
 // glibc keeps freed blocks in its arenas for reuse. Over a route of thousands of motors the
 // worker threads' arenas fragment (free space cut into pieces of a few hundred KiB by small
 // blocks, too small for the next motor's large buffers): their reserved size grows without end
-// (to 640-920 MB for 50-60 MB in use over 2000 motors) and the pages touched between two releases
-// with it, so releasing every so many motors let the peak resident size grow with the route. Releasing
-// after every motor bounds it, but the released pages fault back in (a third slower). So the
-// release follows the resident size instead: after each motor, when it has grown by more than
-// `budgetBytes` since just after the last release, freed memory goes back (malloc_trim). The peak
-// is then the size after a release plus the budget plus one motor, whatever the route.
+// (to 640-920 MB for 50-60 MB in use over 2000 motors) and the pages touched between two
+// releases with it, so releasing every so many motors let the peak resident size grow with the
+// route. Releasing after every motor bounds it, but the released pages fault back in (a third
+// slower). So the release follows the resident size instead: after each motor, when it has grown
+// by more than `budgetBytes` since just after the last release, freed memory goes back
+// (malloc_trim). The peak is then the size after a release plus the budget plus one motor.
 
 #include <cstddef>
 #include <cstdint>

@@ -12,12 +12,8 @@
 
 #include <algorithm>
 #include <atomic>
-#include <chrono>
-#include <deque>
-#include <future>
 #include <map>
 #include <set>
-#include <thread>
 
 namespace humwise::workflow {
 namespace {
@@ -126,7 +122,6 @@ bool isRecordingFile(const fs::path& p) {
 bool report(const ProgressCallback& cb, std::size_t done, std::size_t total, const std::string& stage) {
     return !cb || cb({done, total, stage});
 }
-
 
 // Re-analyses the motors of one round in parallel (loading their recordings in the workers) and
 // stores the products from this thread, in fleet order.
