@@ -153,14 +153,19 @@ Statement& Statement::bind(int i, std::string_view t) {
     check(sqlite3_bind_text(m_stmt, i, t.data(), static_cast<int>(t.size()), SQLITE_TRANSIENT), "bind");
     return *this;
 }
+namespace {
 // An empty span may have no data pointer, and SQLite binds a null pointer as NULL, not as an empty
 // blob: a zero-length blob is bound as such.
+int bindBlobAs(sqlite3_stmt* stmt, int i, std::span<const std::byte> b, sqlite3_destructor_type keep) {
+    return b.empty() ? sqlite3_bind_zeroblob(stmt, i, 0) : sqlite3_bind_blob64(stmt, i, b.data(), b.size(), keep);
+}
+} // namespace
 Statement& Statement::bindBlob(int i, std::span<const std::byte> b) {
-    check(b.empty() ? sqlite3_bind_zeroblob(m_stmt, i, 0) : sqlite3_bind_blob64(m_stmt, i, b.data(), b.size(), SQLITE_TRANSIENT), "bind");
+    check(bindBlobAs(m_stmt, i, b, SQLITE_TRANSIENT), "bind");
     return *this;
 }
 Statement& Statement::bindBlobInPlace(int i, std::span<const std::byte> b) {
-    check(b.empty() ? sqlite3_bind_zeroblob(m_stmt, i, 0) : sqlite3_bind_blob64(m_stmt, i, b.data(), b.size(), SQLITE_STATIC), "bind");
+    check(bindBlobAs(m_stmt, i, b, SQLITE_STATIC), "bind");
     return *this;
 }
 Statement& Statement::bindNull(int i) {
