@@ -30,36 +30,44 @@ RecordSpectrum::RecordSpectrum(std::span<const double> x, double fs) : m_n(x.siz
 
 namespace {
 
-// The band's analytic signal, inverse-transformed in place in `inverse` (a transform of the
-// length the band needs, kept by bandTransform: valid until the next cut on this thread), and
-// the band limits actually used (rounded to lines).
+// An inverse transform of length m, kept per thread and length (bandTransform), and how many
+// leading entries of its input the last cut may have left non-zero: the transform keeps its input
+// (Fft.h), so a cut clears only what the cut before it wrote beyond its own lines.
+template <class Real>
+struct KeptTransform {
+    explicit KeptTransform(std::size_t m) : fft(m, FftDirection::Backward), written(m) {}
+    ComplexFft<Real> fft;
+    std::size_t written; // the fresh buffer holds anything
+};
+
+// The band's analytic signal, inverse-transformed into the output of `inverse` (valid until the
+// next cut on this thread), and the band limits actually used (rounded to lines).
 template <class Real>
 struct BandCut {
-    ComplexFft<Real>* inverse = nullptr;
+    const ComplexFft<Real>* inverse = nullptr;
     double sampleRateHz = 0, loHz = 0, hiHz = 0;
 };
 
-// An inverse transform of length m, kept per thread and length: the kurtogram cuts hundreds of
-// bands per record in a few lengths, and making each transform anew (its buffer mapped and
-// zeroed by the system, then unmapped) cost a fifth of the band search. Bounded by bytes, so
-// that a long record's large bands do not stay behind in a long-lived thread: at most 16 MiB,
-// or the one transform last asked for when that alone is larger.
+// The kurtogram cuts hundreds of bands per record in a few lengths, and making each transform
+// anew (its buffers mapped and zeroed by the system, then unmapped) cost a fifth of the band
+// search. Bounded by bytes, so that a long record's large bands do not stay behind in a
+// long-lived thread: at most 16 MiB, or the one transform last asked for when that alone is larger.
 template <class Real>
-ComplexFft<Real>& bandTransform(std::size_t m) {
+KeptTransform<Real>& bandTransform(std::size_t m) {
     constexpr std::size_t kKeptBytes = std::size_t{16} << 20;
     struct Kept {
-        std::map<std::size_t, std::unique_ptr<ComplexFft<Real>>> byLength;
+        std::map<std::size_t, std::unique_ptr<KeptTransform<Real>>> byLength;
         std::size_t bytes = 0;
     };
     thread_local Kept kept;
     if (auto it = kept.byLength.find(m); it != kept.byLength.end()) return *it->second;
-    const std::size_t bytes = m * sizeof(std::complex<Real>);
+    const std::size_t bytes = 2 * m * sizeof(std::complex<Real>); // input and output
     if (kept.bytes + bytes > kKeptBytes) {
         kept.byLength.clear();
         kept.bytes = 0;
     }
     auto& slot = kept.byLength[m];
-    slot = std::make_unique<ComplexFft<Real>>(m, FftDirection::Backward);
+    slot = std::make_unique<KeptTransform<Real>>(m);
     kept.bytes += bytes;
     return *slot;
 }
@@ -78,8 +86,10 @@ std::shared_ptr<const std::vector<double>> edgeTaper(double taper) {
     return cache.emplace(taper, std::make_shared<const std::vector<double>>(std::move(w))).first->second;
 }
 
+// sizeMultiple: the transform length is nextFastFftSize(max(lines, minLength), sizeMultiple).
 template <class Real>
-BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction,
+                      std::size_t sizeMultiple) {
     const double df = spectrum.lineSpacingHz();
     const std::size_t last = spectrum.bins().size() - 1;
     if (!(hiHz > loHz) || loHz < 0)
@@ -91,11 +101,13 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
     const auto kh = lineAtOrBelow(std::floor(hiHz / df));
     if (kh <= kl) throw std::invalid_argument("extractBand: the band is narrower than one line or above Nyquist");
     const std::size_t width = kh - kl + 1;
-    const std::size_t m = nextFastFftSize(std::max(width, minLength));
-    BandCut<Real> cut;
-    cut.inverse = &bandTransform<Real>(m);
-    auto data = cut.inverse->data();
-    std::fill(data.begin() + static_cast<std::ptrdiff_t>(width), data.end(), std::complex<Real>(0, 0));
+    const std::size_t m = nextFastFftSize(std::max(width, minLength), sizeMultiple);
+    auto& kept = bandTransform<Real>(m);
+    const auto data = kept.fft.input();
+    if (kept.written > width)
+        std::fill(data.begin() + static_cast<std::ptrdiff_t>(width), data.begin() + static_cast<std::ptrdiff_t>(kept.written),
+                  std::complex<Real>(0, 0));
+    kept.written = width;
     const auto bins = spectrum.bins();
     const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
     const auto edgeWeights = taper > 0 ? edgeTaper(taper) : nullptr;
@@ -119,7 +131,9 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
     }
     line(0);
     line(width - 1);
-    cut.inverse->execute();
+    kept.fft.execute();
+    BandCut<Real> cut;
+    cut.inverse = &kept.fft;
     cut.sampleRateHz = static_cast<double>(m) * df;
     cut.loHz = static_cast<double>(kl) * df;
     cut.hiHz = static_cast<double>(kh) * df;
@@ -129,9 +143,9 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
 } // namespace
 
 BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
-    const auto cut = cutBand<double>(spectrum, loHz, hiHz, minLength, taperFraction);
+    const auto cut = cutBand<double>(spectrum, loHz, hiHz, minLength, taperFraction, 1);
     BandSignal out;
-    const auto data = cut.inverse->data();
+    const auto data = cut.inverse->output();
     out.samples.assign(data.begin(), data.end());
     out.sampleRateHz = cut.sampleRateHz;
     out.loHz = cut.loHz;
@@ -169,8 +183,10 @@ HUMWISE_VECTOR_CLONES std::pair<double, double> powerSums(const std::complex<Rea
 
 template <class Real>
 BandMoments momentsOf(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
-    const auto cut = cutBand<Real>(spectrum, loHz, hiHz, minLength, taperFraction);
-    const auto data = cut.inverse->data();
+    // Only the moments are wanted, not samples at given instants: the length may be rounded up
+    // to a multiple of 8, which FFTW transforms faster (Fft.h).
+    const auto cut = cutBand<Real>(spectrum, loHz, hiHz, minLength, taperFraction, 8);
+    const auto data = cut.inverse->output();
     auto [m2, m4] = powerSums(data.data(), data.size());
     const double n = static_cast<double>(data.size());
     m2 /= n;

@@ -2,6 +2,7 @@
 
 #include <fftw3.h>
 
+#include <algorithm>
 #include <map>
 #include <mutex>
 #include <new>
@@ -24,14 +25,14 @@ template <> struct Fftw<double> {
     static void* planR2c(int n, double* in, Complex* out) {
         return fftw_plan_dft_r2c_1d(n, in, out, FFTW_ESTIMATE);
     }
-    static void* planC2c(int n, Complex* data, int sign) {
-        return fftw_plan_dft_1d(n, data, data, sign, FFTW_ESTIMATE);
+    static void* planC2c(int n, Complex* in, Complex* out, int sign) {
+        return fftw_plan_dft_1d(n, in, out, sign, FFTW_ESTIMATE | FFTW_PRESERVE_INPUT);
     }
     static void executeR2c(void* plan, double* in, Complex* out) {
         fftw_execute_dft_r2c(static_cast<fftw_plan>(plan), in, out);
     }
-    static void executeC2c(void* plan, Complex* data) {
-        fftw_execute_dft(static_cast<fftw_plan>(plan), data, data);
+    static void executeC2c(void* plan, Complex* in, Complex* out) {
+        fftw_execute_dft(static_cast<fftw_plan>(plan), in, out);
     }
 };
 
@@ -42,14 +43,14 @@ template <> struct Fftw<float> {
     static void* planR2c(int n, float* in, Complex* out) {
         return fftwf_plan_dft_r2c_1d(n, in, out, FFTW_ESTIMATE);
     }
-    static void* planC2c(int n, Complex* data, int sign) {
-        return fftwf_plan_dft_1d(n, data, data, sign, FFTW_ESTIMATE);
+    static void* planC2c(int n, Complex* in, Complex* out, int sign) {
+        return fftwf_plan_dft_1d(n, in, out, sign, FFTW_ESTIMATE | FFTW_PRESERVE_INPUT);
     }
     static void executeR2c(void* plan, float* in, Complex* out) {
         fftwf_execute_dft_r2c(static_cast<fftwf_plan>(plan), in, out);
     }
-    static void executeC2c(void* plan, Complex* data) {
-        fftwf_execute_dft(static_cast<fftwf_plan>(plan), data, data);
+    static void executeC2c(void* plan, Complex* in, Complex* out) {
+        fftwf_execute_dft(static_cast<fftwf_plan>(plan), in, out);
     }
 };
 
@@ -115,10 +116,13 @@ void* cachedPlan(std::size_t n, PlanKind kind) {
         release<Real>(in);
         release<Real>(out);
     } else {
-        auto* data = allocate<std::complex<Real>>(n);
-        plan = F::planC2c(static_cast<int>(n), reinterpret_cast<typename F::Complex*>(data),
+        auto* in = allocate<std::complex<Real>>(n);
+        auto* out = allocate<std::complex<Real>>(n);
+        plan = F::planC2c(static_cast<int>(n), reinterpret_cast<typename F::Complex*>(in),
+                          reinterpret_cast<typename F::Complex*>(out),
                           kind == PlanKind::ComplexForward ? FFTW_FORWARD : FFTW_BACKWARD);
-        release<Real>(data);
+        release<Real>(in);
+        release<Real>(out);
     }
     if (!plan) throw std::runtime_error("FFTW could not create a plan of size " + std::to_string(n));
     cache.emplace(key, plan);
@@ -170,23 +174,34 @@ ComplexFft<Real>::ComplexFft(std::size_t n, FftDirection direction) : m_n(n) {
     checkSize(n, "ComplexFft");
     m_plan = cachedPlan<Real>(n, direction == FftDirection::Forward ? PlanKind::ComplexForward
                                                                     : PlanKind::ComplexBackward);
-    m_data = allocate<std::complex<Real>>(n);
+    m_in = allocate<std::complex<Real>>(n);
+    try {
+        m_out = allocate<std::complex<Real>>(n);
+    } catch (...) {
+        release<Real>(m_in);
+        throw;
+    }
 }
 
 template <class Real>
-ComplexFft<Real>::~ComplexFft() { release<Real>(m_data); }
+ComplexFft<Real>::~ComplexFft() {
+    release<Real>(m_in);
+    release<Real>(m_out);
+}
 
 template <class Real>
 ComplexFft<Real>::ComplexFft(ComplexFft&& other) noexcept
-    : m_n(std::exchange(other.m_n, 0)), m_data(std::exchange(other.m_data, nullptr)),
-      m_plan(std::exchange(other.m_plan, nullptr)) {}
+    : m_n(std::exchange(other.m_n, 0)), m_in(std::exchange(other.m_in, nullptr)),
+      m_out(std::exchange(other.m_out, nullptr)), m_plan(std::exchange(other.m_plan, nullptr)) {}
 
 template <class Real>
 ComplexFft<Real>& ComplexFft<Real>::operator=(ComplexFft&& other) noexcept {
     if (this != &other) {
-        release<Real>(m_data);
+        release<Real>(m_in);
+        release<Real>(m_out);
         m_n = std::exchange(other.m_n, 0);
-        m_data = std::exchange(other.m_data, nullptr);
+        m_in = std::exchange(other.m_in, nullptr);
+        m_out = std::exchange(other.m_out, nullptr);
         m_plan = std::exchange(other.m_plan, nullptr);
     }
     return *this;
@@ -195,7 +210,8 @@ ComplexFft<Real>& ComplexFft<Real>::operator=(ComplexFft&& other) noexcept {
 template <class Real>
 void ComplexFft<Real>::execute() {
     if (!m_plan) throw std::logic_error("ComplexFft::execute on a moved-from object");
-    Fftw<Real>::executeC2c(m_plan, reinterpret_cast<typename Fftw<Real>::Complex*>(m_data));
+    using C = typename Fftw<Real>::Complex;
+    Fftw<Real>::executeC2c(m_plan, reinterpret_cast<C*>(m_in), reinterpret_cast<C*>(m_out));
 }
 
 template class RealFft<double>;
@@ -203,14 +219,21 @@ template class RealFft<float>;
 template class ComplexFft<double>;
 template class ComplexFft<float>;
 
-std::size_t nextFastFftSize(std::size_t n) {
-    if (n <= 1) return 1;
-    for (std::size_t m = n;; ++m) {
-        std::size_t r = m;
-        for (std::size_t p : {2u, 3u, 5u, 7u})
-            while (r % p == 0) r /= p;
-        if (r == 1) return m;
-    }
+namespace {
+
+bool hasOnlyFactors2357(std::size_t m) {
+    for (std::size_t p : {2u, 3u, 5u, 7u})
+        while (m % p == 0) m /= p;
+    return m == 1;
+}
+
+} // namespace
+
+std::size_t nextFastFftSize(std::size_t n, std::size_t multipleOf) {
+    const std::size_t step = std::max<std::size_t>(multipleOf, 1);
+    if (!hasOnlyFactors2357(step)) throw std::invalid_argument("nextFastFftSize: the multiple must have no prime factor above 7");
+    for (std::size_t m = std::max<std::size_t>((n + step - 1) / step, 1) * step;; m += step)
+        if (hasOnlyFactors2357(m)) return m;
 }
 
 std::size_t cachedPlanCount() {

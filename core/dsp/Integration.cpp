@@ -48,10 +48,11 @@ std::vector<double> convertWaveform(std::span<const double> x, double fs, Quanti
     const std::size_t n = x.size();
     ComplexFft<double> forward(n, FftDirection::Forward);
     ComplexFft<double> backward(n, FftDirection::Backward);
-    auto data = forward.data();
-    for (std::size_t i = 0; i < n; ++i) data[i] = x[i];
+    const auto in = forward.input();
+    for (std::size_t i = 0; i < n; ++i) in[i] = x[i];
     forward.execute();
-    auto spec = backward.data();
+    const auto data = forward.output();
+    const auto spec = backward.input();
     const std::complex<double> j(0.0, 1.0);
     for (std::size_t k = 0; k < n; ++k) {
         // Signed frequency of bin k of a complex transform.
@@ -65,7 +66,8 @@ std::vector<double> convertWaveform(std::span<const double> x, double fs, Quanti
         spec[k] = data[k] / std::pow(jw, steps);
     }
     backward.execute();
-    for (std::size_t i = 0; i < n; ++i) out[i] = spec[i].real() / static_cast<double>(n);
+    const auto back = backward.output();
+    for (std::size_t i = 0; i < n; ++i) out[i] = back[i].real() / static_cast<double>(n);
     return out;
 }
 

@@ -53,14 +53,28 @@ TEST(ComplexFft, ForwardThenBackwardScalesByN) {
     const std::size_t n = 360;
     ComplexFft<double> fwd(n, FftDirection::Forward), bwd(n, FftDirection::Backward);
     const auto re = test::gaussianNoise(1.0, n, 7), im = test::gaussianNoise(1.0, n, 8);
-    for (std::size_t i = 0; i < n; ++i) fwd.data()[i] = {re[i], im[i]};
+    for (std::size_t i = 0; i < n; ++i) fwd.input()[i] = {re[i], im[i]};
     fwd.execute();
-    std::copy(fwd.data().begin(), fwd.data().end(), bwd.data().begin());
+    std::copy(fwd.output().begin(), fwd.output().end(), bwd.input().begin());
     bwd.execute();
     for (std::size_t i = 0; i < n; ++i) {
-        EXPECT_NEAR(bwd.data()[i].real() / n, re[i], 1e-12);
-        EXPECT_NEAR(bwd.data()[i].imag() / n, im[i], 1e-12);
+        EXPECT_NEAR(bwd.output()[i].real() / n, re[i], 1e-12);
+        EXPECT_NEAR(bwd.output()[i].imag() / n, im[i], 1e-12);
     }
+}
+
+// Out of place with FFTW_PRESERVE_INPUT (Fft.h): the band cuts rely on the input surviving
+// execute(), rewriting only part of it for the next transform.
+TEST(ComplexFft, KeepsItsInputAcrossExecute) {
+    const std::size_t n = 8640; // 2^6 3^3 5: FFTW's mixed-radix plans
+    ComplexFft<float> bwd(n, FftDirection::Backward);
+    const auto re = test::gaussianNoise(1.0, n, 3);
+    for (std::size_t i = 0; i < n; ++i) bwd.input()[i] = {static_cast<float>(re[i]), 0.0f};
+    bwd.execute();
+    const std::vector<std::complex<float>> first(bwd.output().begin(), bwd.output().end());
+    for (std::size_t i = 0; i < n; ++i) ASSERT_EQ(bwd.input()[i], std::complex<float>(static_cast<float>(re[i]), 0.0f)) << i;
+    bwd.execute();
+    for (std::size_t i = 0; i < n; ++i) ASSERT_EQ(bwd.output()[i], first[i]) << i;
 }
 
 TEST(Fft, RejectsZeroSize) {
@@ -73,6 +87,19 @@ TEST(Fft, NextFastSizeHasOnlySmallFactors) {
     EXPECT_EQ(nextFastFftSize(11), 12u);
     EXPECT_EQ(nextFastFftSize(4093), 4096u);
     EXPECT_EQ(nextFastFftSize(1000), 1000u);
+    EXPECT_EQ(nextFastFftSize(0), 1u);
+}
+
+TEST(Fft, NextFastSizeCanBeAMultiple) {
+    // 8534 lines: 8575 = 5^2 7^3 is the next size of small factors, 8640 = 2^6 3^3 5 the next
+    // that is also a multiple of 8 (1067..1079 times 8 all have a factor above 7).
+    EXPECT_EQ(nextFastFftSize(8534), 8575u);
+    EXPECT_EQ(nextFastFftSize(8534, 8), 8640u);
+    EXPECT_EQ(nextFastFftSize(8640, 8), 8640u);
+    EXPECT_EQ(nextFastFftSize(3, 8), 8u);
+    EXPECT_EQ(nextFastFftSize(0, 8), 8u);
+    EXPECT_EQ(nextFastFftSize(100, 0), 100u);
+    EXPECT_THROW(nextFastFftSize(100, 11), std::invalid_argument);
 }
 
 // Plans are created under the planner mutex; transforms of shared plans run concurrently.
