@@ -4,9 +4,12 @@
 
 #include <array>
 #include <cmath>
+#include <cstddef>
 #include <cstdint>
 #include <cstring>
+#include <iterator>
 #include <optional>
+#include <vector>
 
 namespace humwise::io {
 namespace {
@@ -83,29 +86,89 @@ Result<Format, ReadError> parseFormat(const Cursor& c, std::size_t at, std::uint
     return f;
 }
 
-double decodeSample(const std::byte* p, const Format& f) {
-    const auto b = [&](int i) { return std::to_integer<std::uint32_t>(p[i]); };
+std::uint32_t byteAt(const std::byte* p, int i) { return std::to_integer<std::uint32_t>(p[i]); }
+
+double decodePcm8(const std::byte* p) { return (static_cast<double>(byteAt(p, 0)) - 128.0) / 128.0; }
+double decodePcm16(const std::byte* p) {
+    return static_cast<double>(static_cast<std::int16_t>(byteAt(p, 0) | byteAt(p, 1) << 8)) / 32768.0;
+}
+double decodePcm24(const std::byte* p) {
+    const auto v = static_cast<std::int32_t>(byteAt(p, 0) << 8 | byteAt(p, 1) << 16 | byteAt(p, 2) << 24) >> 8;
+    return static_cast<double>(v) / 8388608.0;
+}
+double decodePcm32(const std::byte* p) {
+    return static_cast<double>(static_cast<std::int32_t>(byteAt(p, 0) | byteAt(p, 1) << 8 | byteAt(p, 2) << 16 | byteAt(p, 3) << 24)) / 2147483648.0;
+}
+double decodeFloat32(const std::byte* p) {
+    const std::uint32_t u = byteAt(p, 0) | byteAt(p, 1) << 8 | byteAt(p, 2) << 16 | byteAt(p, 3) << 24;
+    float v;
+    std::memcpy(&v, &u, 4);
+    return v;
+}
+double decodeFloat64(const std::byte* p) {
+    std::uint64_t u = 0;
+    for (int i = 7; i >= 0; --i) u = (u << 8) | byteAt(p, i);
+    double v;
+    std::memcpy(&v, &u, 8);
+    return v;
+}
+
+// Walks one channel's samples, every `stride` bytes, decoding and scaling each as it is read:
+// a vector built from a range of these is filled in one pass, without being zeroed first as
+// resize() would (zeroing and decoding were a twentieth of an import's CPU time, 2026-12-03).
+template <double (*Decode)(const std::byte*)>
+struct DecodingIterator {
+    using iterator_category = std::random_access_iterator_tag;
+    using value_type = double;
+    using difference_type = std::ptrdiff_t;
+    using pointer = const double*;
+    using reference = double;
+
+    const std::byte* p = nullptr;
+    std::ptrdiff_t stride = 1;
+    double factor = 1;
+
+    double operator*() const { return Decode(p) * factor; }
+    DecodingIterator& operator++() {
+        p += stride;
+        return *this;
+    }
+    DecodingIterator operator++(int) {
+        auto before = *this;
+        p += stride;
+        return before;
+    }
+    DecodingIterator& operator--() {
+        p -= stride;
+        return *this;
+    }
+    DecodingIterator& operator+=(difference_type n) {
+        p += n * stride;
+        return *this;
+    }
+    difference_type operator-(const DecodingIterator& o) const { return (p - o.p) / stride; }
+    bool operator==(const DecodingIterator& o) const { return p == o.p; }
+};
+
+template <double (*Decode)(const std::byte*)>
+void assignSamples(const std::byte* p, std::size_t frames, std::size_t stride, double factor, std::vector<double>& out) {
+    const auto step = static_cast<std::ptrdiff_t>(stride);
+    const DecodingIterator<Decode> first{p, step, factor}, last{p + static_cast<std::ptrdiff_t>(frames) * step, step, factor};
+    out.assign(first, last);
+}
+
+void decodeChannel(const std::byte* p, std::size_t frames, const Format& f, double factor, std::vector<double>& out) {
+    const std::size_t stride = f.blockAlign;
     if (f.code == kFormatFloat) {
-        if (f.bits == 32) {
-            const std::uint32_t u = b(0) | b(1) << 8 | b(2) << 16 | b(3) << 24;
-            float v;
-            std::memcpy(&v, &u, 4);
-            return v;
-        }
-        std::uint64_t u = 0;
-        for (int i = 7; i >= 0; --i) u = (u << 8) | b(i);
-        double v;
-        std::memcpy(&v, &u, 8);
-        return v;
+        if (f.bits == 32) assignSamples<decodeFloat32>(p, frames, stride, factor, out);
+        else assignSamples<decodeFloat64>(p, frames, stride, factor, out);
+        return;
     }
     switch (f.bits) {
-    case 8: return (static_cast<double>(b(0)) - 128.0) / 128.0;
-    case 16: return static_cast<double>(static_cast<std::int16_t>(b(0) | b(1) << 8)) / 32768.0;
-    case 24: {
-        std::int32_t v = static_cast<std::int32_t>(b(0) << 8 | b(1) << 16 | b(2) << 24) >> 8;
-        return static_cast<double>(v) / 8388608.0;
-    }
-    default: return static_cast<double>(static_cast<std::int32_t>(b(0) | b(1) << 8 | b(2) << 16 | b(3) << 24)) / 2147483648.0;
+    case 8: assignSamples<decodePcm8>(p, frames, stride, factor, out); return;
+    case 16: assignSamples<decodePcm16>(p, frames, stride, factor, out); return;
+    case 24: assignSamples<decodePcm24>(p, frames, stride, factor, out); return;
+    default: assignSamples<decodePcm32>(p, frames, stride, factor, out); return;
     }
 }
 
@@ -155,10 +218,7 @@ Result<Recording, ReadError> parseWav(std::span<const std::byte> bytes, const st
                 out.quantity = quantityOf(cs.unit);
                 const double factor = cs.scale * toSiFactor(cs.unit);
                 if (format->code == kFormatPcm) out.fullScale = std::abs(factor);
-                out.samples.resize(frames);
-                const std::byte* p = bytes.data() + body + ch * bytesPerSample;
-                for (std::size_t i = 0; i < frames; ++i, p += format->blockAlign)
-                    out.samples[i] = decodeSample(p, *format) * factor;
+                decodeChannel(bytes.data() + body + ch * bytesPerSample, frames, *format, factor, out.samples);
             }
             return rec;
         }
