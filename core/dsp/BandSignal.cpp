@@ -8,7 +8,6 @@
 #include <cmath>
 #include <map>
 #include <memory>
-#include <mutex>
 #include <numbers>
 #include <stdexcept>
 #include <utility>
@@ -73,17 +72,34 @@ KeptTransform<Real>& bandTransform(std::size_t m) {
 }
 
 // The raised-cosine weights 0.5 - 0.5 cos(pi (e + 0.5) / taper) of the lines e = 0, 1, ... below
-// `taper` at each edge of a band, cached per taper: the kurtogram cuts many bands of each width,
-// and the cosines were a tenth of its time.
-std::shared_ptr<const std::vector<double>> edgeTaper(double taper) {
-    static std::mutex mutex;
-    static std::map<double, std::shared_ptr<const std::vector<double>>> cache;
-    std::lock_guard lock(mutex);
-    if (auto it = cache.find(taper); it != cache.end()) return it->second;
+// `taper` at each edge of a band, cached per thread and taper: the kurtogram cuts many bands of
+// each width, and the cosines were a tenth of its time. Per thread, so that the two analysis
+// threads do not take a lock for every band.
+const std::vector<double>* edgeTaper(double taper) {
+    thread_local std::map<double, std::vector<double>> cache;
+    if (auto it = cache.find(taper); it != cache.end()) return &it->second;
     if (cache.size() >= 512) cache.clear(); // bounded: a route uses a few hundred band widths
     std::vector<double> w(static_cast<std::size_t>(std::ceil(taper)));
     for (std::size_t e = 0; e < w.size(); ++e) w[e] = 0.5 - 0.5 * std::cos(std::numbers::pi * (static_cast<double>(e) + 0.5) / taper);
-    return cache.emplace(taper, std::make_shared<const std::vector<double>>(std::move(w))).first->second;
+    return &cache.emplace(taper, std::move(w)).first->second;
+}
+
+// out[i] = in[i] * scale, narrowed to Real: the band cut's copy of its lines (vectorises).
+template <class Real>
+HUMWISE_VECTOR_CLONES void scaledLines(const std::complex<double>* in, std::size_t n, double scale, std::complex<Real>* out) {
+    for (std::size_t i = 0; i < n; ++i) out[i] = std::complex<Real>(in[i] * scale);
+}
+
+// nextFastFftSize(n, multiple), remembering the last answer on this thread: the bands of a
+// kurtogram level all ask for the same length, and the search was a fiftieth of the band search.
+std::size_t bandLength(std::size_t n, std::size_t multiple) {
+    thread_local std::size_t lastN = 0, lastMultiple = 0, lastLength = 0;
+    if (n != lastN || multiple != lastMultiple) {
+        lastLength = nextFastFftSize(n, multiple);
+        lastN = n;
+        lastMultiple = multiple;
+    }
+    return lastLength;
 }
 
 // sizeMultiple: the transform length is nextFastFftSize(max(lines, minLength), sizeMultiple).
@@ -101,7 +117,7 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
     const auto kh = lineAtOrBelow(std::floor(hiHz / df));
     if (kh <= kl) throw std::invalid_argument("extractBand: the band is narrower than one line or above Nyquist");
     const std::size_t width = kh - kl + 1;
-    const std::size_t m = nextFastFftSize(std::max(width, minLength), sizeMultiple);
+    const std::size_t m = bandLength(std::max(width, minLength), sizeMultiple);
     auto& kept = bandTransform<Real>(m);
     const auto data = kept.fft.input();
     if (kept.written > width)
@@ -109,28 +125,26 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
                   std::complex<Real>(0, 0));
     kept.written = width;
     const auto bins = spectrum.bins();
-    const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
-    const auto edgeWeights = taper > 0 ? edgeTaper(taper) : nullptr;
-    const std::size_t tapered = edgeWeights ? edgeWeights->size() : 0;
     const double scale = 2.0 / static_cast<double>(spectrum.length());
-    const auto line = [&](std::size_t i) {
-        const std::size_t edge = std::min(i, width - 1 - i);
-        const double t = edge < tapered ? (*edgeWeights)[edge] : 1.0;
-        // The analytic signal weights DC and (even N) the Nyquist line by 1/N, the others by 2/N
-        // (Marple 1999, "Computing the discrete-time analytic signal via FFT").
-        const std::size_t k = kl + i;
-        const bool outerLine = k == 0 || (spectrum.length() % 2 == 0 && k == spectrum.length() / 2);
-        data[i] = std::complex<Real>(bins[k] * ((outerLine ? 0.5 * scale : scale) * t));
-    };
-    // Every line as a middle one (weight 1, 2/N: a plain loop that vectorises), then the tapered
-    // edges and the first and last lines (where DC and Nyquist can only be) line by line.
-    for (std::size_t i = 0; i < width; ++i) data[i] = std::complex<Real>(bins[kl + i] * scale);
-    for (std::size_t e = 0; e < std::min(tapered, width); ++e) {
-        line(e);
-        line(width - 1 - e);
+    // Every line as a middle one (2/N), then the tapered edges, then the DC and (even N) Nyquist
+    // lines, which the analytic signal weights by 1/N (Marple 1999, "Computing the discrete-time
+    // analytic signal via FFT") and which can only be the band's first and last. Plain loops
+    // that vectorise: a per-line weight lookup here was a twentieth of the band search.
+    scaledLines(bins.data() + kl, width, scale, data.data());
+    const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
+    if (taper > 0) {
+        const auto edgeWeights = edgeTaper(taper);
+        // Edges meet in the middle at most (taper <= width / 2); the middle line of an odd width
+        // is weighted once.
+        const std::size_t edges = std::min(edgeWeights->size(), (width + 1) / 2);
+        for (std::size_t e = 0; e < edges; ++e) {
+            const auto t = static_cast<Real>((*edgeWeights)[e]);
+            data[e] *= t;
+            if (width - 1 - e != e) data[width - 1 - e] *= t;
+        }
     }
-    line(0);
-    line(width - 1);
+    if (kl == 0) data[0] *= Real(0.5);
+    if (spectrum.length() % 2 == 0 && kh == spectrum.length() / 2) data[width - 1] *= Real(0.5);
     kept.fft.execute();
     BandCut<Real> cut;
     cut.inverse = &kept.fft;
