@@ -411,11 +411,13 @@ void runStoreFloor(const fs::path& dir, bool throughLog, const Reporter& report)
         journalTaken = journal && journal->taken();
         storage::Transaction tx(database);
         auto insert = database.prepare("INSERT INTO raw(bytes) VALUES (?1)");
-        for (const auto& f : files) {
-            auto bytes = io::readFileBytes(f.path);
+        for (std::size_t i = 0; i < files.size(); ++i) {
+            auto bytes = io::readFileBytes(files[i].path);
             if (!bytes) throw std::runtime_error(bytes.error().message());
             insert.bindBlob(1, bytes.value()).run();
             insert.reset();
+            // As the import does after each motor's files (a motor's worth: 7 files here).
+            if (journal && i % 7 == 6) journal->startWriteBack();
         }
         const auto t = Clock::now();
         tx.commit();

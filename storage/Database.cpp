@@ -2,7 +2,14 @@
 
 #include <sqlite3.h>
 
+#include <cstdlib>
 #include <utility>
+
+#ifdef __linux__
+#include <dirent.h>
+#include <fcntl.h>
+#include <sys/stat.h>
+#endif
 
 namespace humwise::storage {
 StorageError::Code codeForSqlite(int rc) {
@@ -260,6 +267,50 @@ SoleWriterJournal::SoleWriterJournal(Database& db) : m_db(db) {
             // Left in rollback mode: correct, and the next open for writing restores the log.
         }
     }
+}
+
+namespace {
+
+// The descriptor SQLite has open on `path`, found among /proc/self/fd by device and inode, or -1.
+// SQLite's own, used and never closed: closing any descriptor of a file drops every POSIX lock the
+// process holds on it, SQLite's locks included (so no descriptor of our own is opened and closed).
+// Should SQLite close it and the number be reused, write-back asked of another file is harmless.
+int descriptorOpenOn(const std::filesystem::path& path) noexcept {
+#ifdef __linux__
+    struct stat target {};
+    if (::stat(path.c_str(), &target) != 0) return -1;
+    DIR* dir = ::opendir("/proc/self/fd");
+    if (!dir) return -1;
+    const int own = ::dirfd(dir);
+    int found = -1;
+    while (const dirent* entry = ::readdir(dir)) {
+        char* end = nullptr;
+        const long fd = std::strtol(entry->d_name, &end, 10);
+        if (end == entry->d_name || *end != '\0' || fd == own) continue;
+        struct stat st {};
+        if (::fstat(static_cast<int>(fd), &st) == 0 && st.st_dev == target.st_dev && st.st_ino == target.st_ino) {
+            found = static_cast<int>(fd);
+            break;
+        }
+    }
+    ::closedir(dir);
+    return found;
+#else
+    (void)path;
+    return -1;
+#endif
+}
+
+} // namespace
+
+bool SoleWriterJournal::startWriteBack() noexcept {
+#ifdef __linux__
+    if (!m_taken) return false;
+    if (m_descriptor == -2) m_descriptor = descriptorOpenOn(m_db.path());
+    return m_descriptor >= 0 && ::sync_file_range(m_descriptor, 0, 0, SYNC_FILE_RANGE_WRITE) == 0;
+#else
+    return false;
+#endif
 }
 
 SoleWriterJournal::~SoleWriterJournal() {

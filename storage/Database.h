@@ -154,9 +154,20 @@ public:
     SoleWriterJournal& operator=(const SoleWriterJournal&) = delete;
     bool taken() const { return m_taken; }
 
+    // While taken: asks the system to start writing to the disk what the transaction has written
+    // into the database file so far, without waiting for it (Linux: sync_file_range with
+    // SYNC_FILE_RANGE_WRITE on the descriptor SQLite has open on the file). The commit syncs the
+    // file and would otherwise find the whole round still to write: the writer asks after each
+    // motor, and the disk works while the analysis goes on. Durability is unchanged (the commit
+    // still syncs; SQLite expects any page it writes to reach the disk at any time). Returns
+    // whether it was asked: false when not taken, elsewhere than Linux, or when the descriptor is
+    // not found. Never throws.
+    bool startWriteBack() noexcept;
+
 private:
     Database& m_db;
     bool m_taken = false;
+    int m_descriptor = -2; // SQLite's descriptor on the file, looked up at the first write-back; -1: none
 };
 
 } // namespace humwise::storage

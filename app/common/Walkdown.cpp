@@ -437,6 +437,7 @@ Result<ImportReport, ImportError> importWalkdown(storage::FleetStore& store, con
             if (analyse && (rep.bad.empty() || options.skipBad)) {
                 if (!tx) beginRound();
                 storeMotor(m, w);
+                journal->startWriteBack(); // the disk writes this motor while the next are analysed
                 if (!report(options.progress, done, plan.size(), "analysing " + motors[m]->motor.tag)) throw Cancelled{};
             }
             w = {}; // this motor's buffers go before the release, not after it
