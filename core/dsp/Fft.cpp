@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <map>
+#include <memory>
 #include <mutex>
 #include <new>
 #include <stdexcept>
@@ -168,6 +169,29 @@ void RealFft<Real>::execute() {
     if (!m_plan) throw std::logic_error("RealFft::execute on a moved-from object");
     Fftw<Real>::executeR2c(m_plan, m_in, reinterpret_cast<typename Fftw<Real>::Complex*>(m_out));
 }
+
+template <class Real>
+RealFft<Real>& keptRealFft(std::size_t n) {
+    constexpr std::size_t kKeptBytes = std::size_t{32} << 20;
+    struct Kept {
+        std::map<std::size_t, std::unique_ptr<RealFft<Real>>> byLength;
+        std::size_t bytes = 0;
+    };
+    thread_local Kept kept;
+    if (auto it = kept.byLength.find(n); it != kept.byLength.end()) return *it->second;
+    const std::size_t bytes = n * sizeof(Real) + (n / 2 + 1) * sizeof(std::complex<Real>);
+    if (kept.bytes + bytes > kKeptBytes) {
+        kept.byLength.clear();
+        kept.bytes = 0;
+    }
+    auto& slot = kept.byLength[n];
+    slot = std::make_unique<RealFft<Real>>(n);
+    kept.bytes += bytes;
+    return *slot;
+}
+
+template RealFft<double>& keptRealFft<double>(std::size_t);
+template RealFft<float>& keptRealFft<float>(std::size_t);
 
 template <class Real>
 ComplexFft<Real>::ComplexFft(std::size_t n, FftDirection direction) : m_n(n) {

@@ -42,6 +42,16 @@ private:
     void* m_plan = nullptr; // owned by the process-wide cache
 };
 
+// A forward real transform of length n kept for the calling thread and reused: the analysis
+// transforms records of the same few lengths motor after motor, and a fresh transform's buffers
+// (megabytes for a record) cost page faults every time and cut the heap into pieces that the
+// next motor's buffers do not fit (bench/README.md, memory). At most 32 MiB are kept per thread:
+// all are dropped when a new length would exceed that (one larger alone is kept until the next).
+// The reference is valid until this thread's next call: fill, execute and read the transform
+// without asking for another kept one in between. Its input holds whatever the last use left.
+template <class Real>
+RealFft<Real>& keptRealFft(std::size_t n);
+
 enum class FftDirection { Forward, Backward };
 
 // Complex, out of place, length n. The input is kept (FFTW_PRESERVE_INPUT): a caller that

@@ -237,7 +237,7 @@ std::vector<double> segmentPower(std::span<const double> x, const SegmentPlan& p
     const std::size_t n = plan.n;
     const std::vector<double>& w = *window.samples;
     const auto& head = window.dftHead;
-    RealFft<double> fft(n);
+    RealFft<double>& fft = keptRealFft<double>(n);
     const std::size_t bins = n / 2 + 1;
     std::vector<double> power(bins, 0.0);
     auto in = fft.input();

@@ -37,7 +37,7 @@ Result<ZoomTransform, AnalysisError> ZoomTransform::of(std::span<const double> x
     t.m_s1 = util::sumOf(w);
     t.m_s2 = util::deviationSums(w, 0.0).squares;
     const double mean = util::sumOf(x) / static_cast<double>(n);
-    RealFft<double> fft(nfft);
+    RealFft<double>& fft = keptRealFft<double>(nfft);
     auto in = fft.input();
     for (std::size_t i = 0; i < n; ++i) in[i] = (x[i] - mean) * w[i];
     std::fill(in.begin() + static_cast<std::ptrdiff_t>(n), in.end(), 0.0);
