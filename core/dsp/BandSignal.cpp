@@ -60,15 +60,14 @@ KeptTransform<Real>& bandTransform(std::size_t m) {
     };
     thread_local Kept kept;
     if (auto it = kept.byLength.find(m); it != kept.byLength.end()) return *it->second;
+    auto made = std::make_unique<KeptTransform<Real>>(m); // first: a size it refuses leaves nothing behind
     const std::size_t bytes = 2 * m * sizeof(std::complex<Real>); // input and output
     if (kept.bytes + bytes > kKeptBytes) {
         kept.byLength.clear();
         kept.bytes = 0;
     }
-    auto& slot = kept.byLength[m];
-    slot = std::make_unique<KeptTransform<Real>>(m);
     kept.bytes += bytes;
-    return *slot;
+    return *kept.byLength.emplace(m, std::move(made)).first->second;
 }
 
 // The raised-cosine weights 0.5 - 0.5 cos(pi (e + 0.5) / taper) of the lines e = 0, 1, ... below

@@ -170,26 +170,44 @@ void RealFft<Real>::execute() {
     Fftw<Real>::executeR2c(m_plan, m_in, reinterpret_cast<typename Fftw<Real>::Complex*>(m_out));
 }
 
+namespace {
+
+template <class Real>
+struct KeptRealFfts {
+    std::map<std::size_t, std::unique_ptr<RealFft<Real>>> byLength;
+    std::size_t bytes = 0;
+};
+
+template <class Real>
+KeptRealFfts<Real>& keptOnThisThread() {
+    thread_local KeptRealFfts<Real> kept;
+    return kept;
+}
+
+} // namespace
+
 template <class Real>
 RealFft<Real>& keptRealFft(std::size_t n) {
     constexpr std::size_t kKeptBytes = std::size_t{32} << 20;
-    struct Kept {
-        std::map<std::size_t, std::unique_ptr<RealFft<Real>>> byLength;
-        std::size_t bytes = 0;
-    };
-    thread_local Kept kept;
+    auto& kept = keptOnThisThread<Real>();
     if (auto it = kept.byLength.find(n); it != kept.byLength.end()) return *it->second;
+    auto made = std::make_unique<RealFft<Real>>(n); // first: a size it refuses leaves nothing behind
     const std::size_t bytes = n * sizeof(Real) + (n / 2 + 1) * sizeof(std::complex<Real>);
     if (kept.bytes + bytes > kKeptBytes) {
         kept.byLength.clear();
         kept.bytes = 0;
     }
-    auto& slot = kept.byLength[n];
-    slot = std::make_unique<RealFft<Real>>(n);
     kept.bytes += bytes;
-    return *slot;
+    return *kept.byLength.emplace(n, std::move(made)).first->second;
 }
 
+template <class Real>
+std::size_t keptRealFftBytes() {
+    return keptOnThisThread<Real>().bytes;
+}
+
+template std::size_t keptRealFftBytes<double>();
+template std::size_t keptRealFftBytes<float>();
 template RealFft<double>& keptRealFft<double>(std::size_t);
 template RealFft<float>& keptRealFft<float>(std::size_t);
 

@@ -51,6 +51,9 @@ private:
 // without asking for another kept one in between. Its input holds whatever the last use left.
 template <class Real>
 RealFft<Real>& keptRealFft(std::size_t n);
+// The bytes of buffers the calling thread keeps that way (for tests of the bound).
+template <class Real>
+std::size_t keptRealFftBytes();
 
 enum class FftDirection { Forward, Backward };
 

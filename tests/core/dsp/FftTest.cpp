@@ -77,6 +77,46 @@ TEST(ComplexFft, KeepsItsInputAcrossExecute) {
     for (std::size_t i = 0; i < n; ++i) ASSERT_EQ(bwd.output()[i], first[i]) << i;
 }
 
+// Kept transforms (Fft.h): one per length and thread, reused, each thread its own; the same
+// plan as a fresh transform, so the same numbers to the bit.
+TEST(KeptRealFft, ReusedPerLengthAndThreadAndTransformsLikeAFreshOne) {
+    RealFft<double>& a = keptRealFft<double>(1000);
+    EXPECT_EQ(&keptRealFft<double>(1000), &a);
+    EXPECT_NE(static_cast<void*>(&keptRealFft<float>(1000)), static_cast<void*>(&a));
+    const RealFft<double>* other = nullptr;
+    std::thread([&] { other = &keptRealFft<double>(1000); }).join();
+    EXPECT_NE(other, &a);
+
+    const auto x = test::gaussianNoise(1.0, 1000, 5);
+    RealFft<double>& kept = keptRealFft<double>(1000);
+    RealFft<double> fresh(1000);
+    std::copy(x.begin(), x.end(), kept.input().begin());
+    std::copy(x.begin(), x.end(), fresh.input().begin());
+    kept.execute();
+    fresh.execute();
+    for (std::size_t k = 0; k < fresh.binCount(); ++k) ASSERT_EQ(kept.output()[k], fresh.output()[k]) << k;
+}
+
+// Bounded: a length that would take the thread past 32 MiB drops the others first.
+TEST(KeptRealFft, DropsTheOthersBeyondItsBudget) {
+    std::thread([] {
+        const auto bytesOf = [](std::size_t n) { return n * sizeof(double) + (n / 2 + 1) * sizeof(std::complex<double>); };
+        EXPECT_EQ(keptRealFftBytes<double>(), 0u);
+        keptRealFft<double>(4096);
+        keptRealFft<double>(std::size_t{1} << 20); // 8 + 8 MiB
+        EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(4096) + bytesOf(std::size_t{1} << 20));
+        keptRealFft<double>(std::size_t{3} << 19); // 12 + 12 MiB: past 32 MiB with the others
+        EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19));
+        keptRealFft<double>(std::size_t{3} << 19);
+        EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19)) << "the same length is reused, not added";
+        // A length the transform refuses throws and keeps nothing (a kept empty slot would crash
+        // the next call for it).
+        EXPECT_THROW(keptRealFft<double>(0), std::invalid_argument);
+        EXPECT_THROW(keptRealFft<double>(0), std::invalid_argument);
+        EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19));
+    }).join();
+}
+
 TEST(Fft, RejectsZeroSize) {
     EXPECT_THROW(RealFft<double>(0), std::invalid_argument);
     EXPECT_THROW(ComplexFft<float>(0, FftDirection::Forward), std::invalid_argument);
