@@ -5,6 +5,7 @@
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
+#include <optional>
 #include <cmath>
 #include <map>
 #include <memory>
@@ -19,7 +20,8 @@ RecordSpectrum::RecordSpectrum(std::span<const double> x, double fs) : m_n(x.siz
     if (x.size() < 4) throw std::invalid_argument("RecordSpectrum: the record needs at least 4 samples");
     if (!(fs > 0)) throw std::invalid_argument("RecordSpectrum: sample rate must be > 0");
     const double mean = util::sumOf(x) / static_cast<double>(x.size());
-    RealFft<double>& fft = keptRealFft<double>(m_n);
+    std::optional<RealFft<double>> own;
+    RealFft<double>& fft = keptRealFft<double>(m_n, own);
     auto in = fft.input();
     for (std::size_t i = 0; i < m_n; ++i) in[i] = x[i] - mean;
     fft.execute();

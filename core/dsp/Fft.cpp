@@ -137,7 +137,12 @@ RealFft<Real>::RealFft(std::size_t n) : m_n(n) {
     checkSize(n, "RealFft");
     m_plan = cachedPlan<Real>(n, PlanKind::RealForward);
     m_in = allocate<Real>(n);
-    m_out = allocate<std::complex<Real>>(n / 2 + 1);
+    try {
+        m_out = allocate<std::complex<Real>>(n / 2 + 1);
+    } catch (...) {
+        release<Real>(m_in);
+        throw;
+    }
 }
 
 template <class Real>
@@ -187,18 +192,21 @@ KeptRealFfts<Real>& keptOnThisThread() {
 } // namespace
 
 template <class Real>
-RealFft<Real>& keptRealFft(std::size_t n) {
+RealFft<Real>& keptRealFft(std::size_t n, std::optional<RealFft<Real>>& own) {
     constexpr std::size_t kKeptBytes = std::size_t{32} << 20;
     auto& kept = keptOnThisThread<Real>();
     if (auto it = kept.byLength.find(n); it != kept.byLength.end()) return *it->second;
-    auto made = std::make_unique<RealFft<Real>>(n); // first: a size it refuses leaves nothing behind
+    checkSize(n, "RealFft");
     const std::size_t bytes = n * sizeof(Real) + (n / 2 + 1) * sizeof(std::complex<Real>);
+    if (bytes > kKeptBytes) return own.emplace(n);
+    auto made = std::make_unique<RealFft<Real>>(n); // first: a failure leaves nothing behind
     if (kept.bytes + bytes > kKeptBytes) {
         kept.byLength.clear();
         kept.bytes = 0;
     }
+    RealFft<Real>& fft = *kept.byLength.emplace(n, std::move(made)).first->second;
     kept.bytes += bytes;
-    return *kept.byLength.emplace(n, std::move(made)).first->second;
+    return fft;
 }
 
 template <class Real>
@@ -208,8 +216,8 @@ std::size_t keptRealFftBytes() {
 
 template std::size_t keptRealFftBytes<double>();
 template std::size_t keptRealFftBytes<float>();
-template RealFft<double>& keptRealFft<double>(std::size_t);
-template RealFft<float>& keptRealFft<float>(std::size_t);
+template RealFft<double>& keptRealFft<double>(std::size_t, std::optional<RealFft<double>>&);
+template RealFft<float>& keptRealFft<float>(std::size_t, std::optional<RealFft<float>>&);
 
 template <class Real>
 ComplexFft<Real>::ComplexFft(std::size_t n, FftDirection direction) : m_n(n) {
@@ -274,6 +282,7 @@ bool hasOnlyFactors2357(std::size_t m) {
 std::size_t nextFastFftSize(std::size_t n, std::size_t multipleOf) {
     const std::size_t step = std::max<std::size_t>(multipleOf, 1);
     if (!hasOnlyFactors2357(step)) throw std::invalid_argument("nextFastFftSize: the multiple must have no prime factor above 7");
+    if (n > (std::size_t{1} << 62)) throw std::invalid_argument("nextFastFftSize: the length is beyond any transform");
     for (std::size_t m = std::max<std::size_t>((n + step - 1) / step, 1) * step;; m += step)
         if (hasOnlyFactors2357(m)) return m;
 }

@@ -13,6 +13,7 @@
 
 #include <complex>
 #include <cstddef>
+#include <optional>
 #include <span>
 
 namespace humwise::dsp {
@@ -46,11 +47,12 @@ private:
 // transforms records of the same few lengths motor after motor, and a fresh transform's buffers
 // (megabytes for a record) cost page faults every time and cut the heap into pieces that the
 // next motor's buffers do not fit (bench/README.md, memory). At most 32 MiB are kept per thread:
-// all are dropped when a new length would exceed that (one larger alone is kept until the next).
-// The reference is valid until this thread's next call: fill, execute and read the transform
-// without asking for another kept one in between. Its input holds whatever the last use left.
+// all are dropped when a new length would exceed that. A transform larger than that alone is
+// not kept: it is made in `own`, and goes with it. The reference is valid until this thread's
+// next call (or `own`'s end): fill, execute and read the transform without asking for another in
+// between. Its input holds whatever the last use left.
 template <class Real>
-RealFft<Real>& keptRealFft(std::size_t n);
+RealFft<Real>& keptRealFft(std::size_t n, std::optional<RealFft<Real>>& own);
 // The bytes of buffers the calling thread keeps that way (for tests of the bound).
 template <class Real>
 std::size_t keptRealFftBytes();

@@ -4,6 +4,7 @@
 #include "core/dsp/Fft.h"
 
 #include <algorithm>
+#include <optional>
 #include <complex>
 #include <map>
 #include <memory>
@@ -237,7 +238,8 @@ std::vector<double> segmentPower(std::span<const double> x, const SegmentPlan& p
     const std::size_t n = plan.n;
     const std::vector<double>& w = *window.samples;
     const auto& head = window.dftHead;
-    RealFft<double>& fft = keptRealFft<double>(n);
+    std::optional<RealFft<double>> own;
+    RealFft<double>& fft = keptRealFft<double>(n, own);
     const std::size_t bins = n / 2 + 1;
     std::vector<double> power(bins, 0.0);
     auto in = fft.input();

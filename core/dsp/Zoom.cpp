@@ -4,6 +4,7 @@
 #include "core/util/Sums.h"
 
 #include <algorithm>
+#include <optional>
 #include <cmath>
 
 namespace humwise::dsp {
@@ -37,7 +38,8 @@ Result<ZoomTransform, AnalysisError> ZoomTransform::of(std::span<const double> x
     t.m_s1 = util::sumOf(w);
     t.m_s2 = util::deviationSums(w, 0.0).squares;
     const double mean = util::sumOf(x) / static_cast<double>(n);
-    RealFft<double>& fft = keptRealFft<double>(nfft);
+    std::optional<RealFft<double>> own;
+    RealFft<double>& fft = keptRealFft<double>(nfft, own);
     auto in = fft.input();
     for (std::size_t i = 0; i < n; ++i) in[i] = (x[i] - mean) * w[i];
     std::fill(in.begin() + static_cast<std::ptrdiff_t>(n), in.end(), 0.0);

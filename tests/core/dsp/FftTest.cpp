@@ -8,6 +8,7 @@
 #include <cmath>
 #include <complex>
 #include <numbers>
+#include <optional>
 #include <thread>
 
 namespace humwise::dsp {
@@ -80,15 +81,21 @@ TEST(ComplexFft, KeepsItsInputAcrossExecute) {
 // Kept transforms (Fft.h): one per length and thread, reused, each thread its own; the same
 // plan as a fresh transform, so the same numbers to the bit.
 TEST(KeptRealFft, ReusedPerLengthAndThreadAndTransformsLikeAFreshOne) {
-    RealFft<double>& a = keptRealFft<double>(1000);
-    EXPECT_EQ(&keptRealFft<double>(1000), &a);
-    EXPECT_NE(static_cast<void*>(&keptRealFft<float>(1000)), static_cast<void*>(&a));
+    std::optional<RealFft<double>> own;
+    std::optional<RealFft<float>> ownFloat;
+    RealFft<double>& a = keptRealFft<double>(1000, own);
+    EXPECT_EQ(&keptRealFft<double>(1000, own), &a);
+    EXPECT_NE(static_cast<void*>(&keptRealFft<float>(1000, ownFloat)), static_cast<void*>(&a));
+    EXPECT_FALSE(own.has_value());
     const RealFft<double>* other = nullptr;
-    std::thread([&] { other = &keptRealFft<double>(1000); }).join();
+    std::thread([&] {
+        std::optional<RealFft<double>> theirs;
+        other = &keptRealFft<double>(1000, theirs);
+    }).join();
     EXPECT_NE(other, &a);
 
     const auto x = test::gaussianNoise(1.0, 1000, 5);
-    RealFft<double>& kept = keptRealFft<double>(1000);
+    RealFft<double>& kept = keptRealFft<double>(1000, own);
     RealFft<double> fresh(1000);
     std::copy(x.begin(), x.end(), kept.input().begin());
     std::copy(x.begin(), x.end(), fresh.input().begin());
@@ -97,22 +104,31 @@ TEST(KeptRealFft, ReusedPerLengthAndThreadAndTransformsLikeAFreshOne) {
     for (std::size_t k = 0; k < fresh.binCount(); ++k) ASSERT_EQ(kept.output()[k], fresh.output()[k]) << k;
 }
 
-// Bounded: a length that would take the thread past 32 MiB drops the others first.
-TEST(KeptRealFft, DropsTheOthersBeyondItsBudget) {
+// Bounded: a length that would take the thread past 32 MiB drops the others first; one larger
+// than that alone is made in the caller's `own` and not kept; a refused length keeps nothing.
+TEST(KeptRealFft, StaysWithinItsBudget) {
     std::thread([] {
         const auto bytesOf = [](std::size_t n) { return n * sizeof(double) + (n / 2 + 1) * sizeof(std::complex<double>); };
+        std::optional<RealFft<double>> own;
         EXPECT_EQ(keptRealFftBytes<double>(), 0u);
-        keptRealFft<double>(4096);
-        keptRealFft<double>(std::size_t{1} << 20); // 8 + 8 MiB
+        keptRealFft<double>(4096, own);
+        keptRealFft<double>(std::size_t{1} << 20, own); // 8 + 8 MiB
         EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(4096) + bytesOf(std::size_t{1} << 20));
-        keptRealFft<double>(std::size_t{3} << 19); // 12 + 12 MiB: past 32 MiB with the others
+        keptRealFft<double>(std::size_t{3} << 19, own); // 12 + 12 MiB: past 32 MiB with the others
         EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19));
-        keptRealFft<double>(std::size_t{3} << 19);
+        keptRealFft<double>(std::size_t{3} << 19, own);
         EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19)) << "the same length is reused, not added";
+        EXPECT_FALSE(own.has_value());
+
+        RealFft<double>& large = keptRealFft<double>(std::size_t{3} << 20, own); // 24 + 24 MiB
+        ASSERT_TRUE(own.has_value());
+        EXPECT_EQ(&large, &*own);
+        EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19)) << "not kept";
+
         // A length the transform refuses throws and keeps nothing (a kept empty slot would crash
         // the next call for it).
-        EXPECT_THROW(keptRealFft<double>(0), std::invalid_argument);
-        EXPECT_THROW(keptRealFft<double>(0), std::invalid_argument);
+        EXPECT_THROW(keptRealFft<double>(0, own), std::invalid_argument);
+        EXPECT_THROW(keptRealFft<double>(0, own), std::invalid_argument);
         EXPECT_EQ(keptRealFftBytes<double>(), bytesOf(std::size_t{3} << 19));
     }).join();
 }
