@@ -271,14 +271,16 @@ SoleWriterJournal::SoleWriterJournal(Database& db) : m_db(db) {
 
 namespace {
 
-// The descriptor SQLite has open on `path`, found among /proc/self/fd by device and inode, or -1.
+#ifdef __linux__
+bool isFile(int fd, const struct stat& target) {
+    struct stat st {};
+    return ::fstat(fd, &st) == 0 && st.st_dev == target.st_dev && st.st_ino == target.st_ino;
+}
+
+// The descriptor SQLite has open on the file `target` describes, found among /proc/self/fd, or -1.
 // SQLite's own, used and never closed: closing any descriptor of a file drops every POSIX lock the
 // process holds on it, SQLite's locks included (so no descriptor of our own is opened and closed).
-// Should SQLite close it and the number be reused, write-back asked of another file is harmless.
-int descriptorOpenOn(const std::filesystem::path& path) noexcept {
-#ifdef __linux__
-    struct stat target {};
-    if (::stat(path.c_str(), &target) != 0) return -1;
+int descriptorOpenOn(const struct stat& target) noexcept {
     DIR* dir = ::opendir("/proc/self/fd");
     if (!dir) return -1;
     const int own = ::dirfd(dir);
@@ -287,26 +289,28 @@ int descriptorOpenOn(const std::filesystem::path& path) noexcept {
         char* end = nullptr;
         const long fd = std::strtol(entry->d_name, &end, 10);
         if (end == entry->d_name || *end != '\0' || fd == own) continue;
-        struct stat st {};
-        if (::fstat(static_cast<int>(fd), &st) == 0 && st.st_dev == target.st_dev && st.st_ino == target.st_ino) {
+        if (isFile(static_cast<int>(fd), target)) {
             found = static_cast<int>(fd);
             break;
         }
     }
     ::closedir(dir);
     return found;
-#else
-    (void)path;
-    return -1;
-#endif
 }
+#endif
 
 } // namespace
 
 bool SoleWriterJournal::startWriteBack() noexcept {
 #ifdef __linux__
     if (!m_taken) return false;
-    if (m_descriptor == -2) m_descriptor = descriptorOpenOn(m_db.path());
+    // SQLite's own name for the file (absolute, whatever the working folder is now).
+    const char* file = sqlite3_db_filename(m_db.handle(), "main");
+    struct stat target {};
+    if (!file || !*file || ::stat(file, &target) != 0) return false;
+    // The number found last time, if it still names this file (SQLite may have closed it and the
+    // number gone to another file since).
+    if (m_descriptor < 0 || !isFile(m_descriptor, target)) m_descriptor = descriptorOpenOn(target);
     return m_descriptor >= 0 && ::sync_file_range(m_descriptor, 0, 0, SYNC_FILE_RANGE_WRITE) == 0;
 #else
     return false;

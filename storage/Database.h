@@ -167,7 +167,7 @@ public:
 private:
     Database& m_db;
     bool m_taken = false;
-    int m_descriptor = -2; // SQLite's descriptor on the file, looked up at the first write-back; -1: none
+    [[maybe_unused]] int m_descriptor = -1; // SQLite's descriptor on the file, found at a write-back (Linux)
 };
 
 } // namespace humwise::storage

@@ -235,7 +235,8 @@ TEST(SoleWriterJournal, WriteBackMidWriteKeepsTheLockAndTheRound) {
         int status = 0;
         ASSERT_EQ(waitpid(pid, &status, 0), pid);
         ASSERT_TRUE(WIFEXITED(status));
-        EXPECT_EQ(WEXITSTATUS(status), 0) << "1: the writer holds no lock on the file any more";
+        EXPECT_EQ(WEXITSTATUS(status), 0) << "1: the writer holds no lock on the file any more; 2: the child could not "
+                                             "open the file; 3: F_GETLK failed";
         tx.commit();
     }
     EXPECT_EQ(openDescriptors(), before);
@@ -247,6 +248,8 @@ TEST(SoleWriterJournal, WriteBackMidWriteKeepsTheLockAndTheRound) {
 }
 
 // Pages written to the disk early are still rolled back: the journal holds what they replaced.
+// (A regression check on the write-back's use: it would pass without it too, as it should -
+// the rollback must not depend on when the pages reached the disk.)
 TEST(SoleWriterJournal, WriteBackThenRollbackLeavesTheFileAsItWas) {
     const auto p = freshPath("sole-writeback-rollback.db");
     makeStore(p);
