@@ -3,6 +3,7 @@
 #include "core/io/FileBytes.h"
 
 #include <array>
+#include <compare>
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
@@ -118,42 +119,61 @@ double decodeFloat64(const std::byte* p) {
 // resize() would (zeroing and decoding were a twentieth of an import's CPU time, 2026-12-03).
 template <double (*Decode)(const std::byte*)>
 struct DecodingIterator {
+    // Random access for vector::assign's one allocation; `reference` is the decoded value itself
+    // (the samples exist only as bytes), as with other iterators that compute what they yield.
     using iterator_category = std::random_access_iterator_tag;
     using value_type = double;
     using difference_type = std::ptrdiff_t;
     using pointer = const double*;
     using reference = double;
 
-    const std::byte* p = nullptr;
-    std::ptrdiff_t stride = 1;
+    // Sample `index` is at base + index * stride: no pointer beyond the data is ever formed (the
+    // end of the last channel would lie past the file's last byte).
+    const std::byte* base = nullptr;
+    difference_type index = 0;
+    difference_type stride = 1;
     double factor = 1;
 
-    double operator*() const { return Decode(p) * factor; }
+    double operator*() const { return Decode(base + index * stride) * factor; }
+    double operator[](difference_type n) const { return *(*this + n); }
     DecodingIterator& operator++() {
-        p += stride;
+        ++index;
         return *this;
     }
     DecodingIterator operator++(int) {
         auto before = *this;
-        p += stride;
+        ++index;
         return before;
     }
     DecodingIterator& operator--() {
-        p -= stride;
+        --index;
         return *this;
+    }
+    DecodingIterator operator--(int) {
+        auto before = *this;
+        --index;
+        return before;
     }
     DecodingIterator& operator+=(difference_type n) {
-        p += n * stride;
+        index += n;
         return *this;
     }
-    difference_type operator-(const DecodingIterator& o) const { return (p - o.p) / stride; }
-    bool operator==(const DecodingIterator& o) const { return p == o.p; }
+    DecodingIterator& operator-=(difference_type n) {
+        index -= n;
+        return *this;
+    }
+    friend DecodingIterator operator+(DecodingIterator i, difference_type n) { return i += n; }
+    friend DecodingIterator operator+(difference_type n, DecodingIterator i) { return i += n; }
+    friend DecodingIterator operator-(DecodingIterator i, difference_type n) { return i -= n; }
+    difference_type operator-(const DecodingIterator& o) const { return index - o.index; }
+    bool operator==(const DecodingIterator& o) const { return index == o.index; }
+    auto operator<=>(const DecodingIterator& o) const { return index <=> o.index; }
 };
 
 template <double (*Decode)(const std::byte*)>
 void assignSamples(const std::byte* p, std::size_t frames, std::size_t stride, double factor, std::vector<double>& out) {
     const auto step = static_cast<std::ptrdiff_t>(stride);
-    const DecodingIterator<Decode> first{p, step, factor}, last{p + static_cast<std::ptrdiff_t>(frames) * step, step, factor};
+    const DecodingIterator<Decode> first{p, 0, step, factor}, last{p, static_cast<std::ptrdiff_t>(frames), step, factor};
     out.assign(first, last);
 }
 
