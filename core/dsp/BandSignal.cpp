@@ -5,11 +5,11 @@
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
-#include <optional>
 #include <cmath>
 #include <map>
 #include <memory>
 #include <numbers>
+#include <optional>
 #include <stdexcept>
 #include <utility>
 #include <vector>

@@ -4,17 +4,17 @@
 #include "core/dsp/Fft.h"
 
 #include <algorithm>
-#include <optional>
+#include <cctype>
+#include <cmath>
 #include <complex>
+#include <cstdio>
+#include <limits>
 #include <map>
 #include <memory>
 #include <mutex>
-#include <tuple>
-#include <cctype>
-#include <cmath>
-#include <cstdio>
-#include <limits>
+#include <optional>
 #include <string>
+#include <tuple>
 
 namespace humwise::dsp {
 namespace {

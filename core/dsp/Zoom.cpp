@@ -4,8 +4,8 @@
 #include "core/util/Sums.h"
 
 #include <algorithm>
-#include <optional>
 #include <cmath>
+#include <optional>
 
 namespace humwise::dsp {
 
