@@ -1,6 +1,7 @@
 #include "core/dsp/BandSignal.h"
 
 #include "core/dsp/Fft.h"
+#include "core/dsp/KeptByLength.h"
 #include "core/util/Sums.h"
 #include "core/util/VectorClones.h"
 
@@ -55,21 +56,9 @@ struct BandCut {
 // long-lived thread: at most 16 MiB, or the one transform last asked for when that alone is larger.
 template <class Real>
 KeptTransform<Real>& bandTransform(std::size_t m) {
-    constexpr std::size_t kKeptBytes = std::size_t{16} << 20;
-    struct Kept {
-        std::map<std::size_t, std::unique_ptr<KeptTransform<Real>>> byLength;
-        std::size_t bytes = 0;
-    };
-    thread_local Kept kept;
-    if (auto it = kept.byLength.find(m); it != kept.byLength.end()) return *it->second;
-    auto made = std::make_unique<KeptTransform<Real>>(m); // first: a size it refuses leaves nothing behind
-    const std::size_t bytes = 2 * m * sizeof(std::complex<Real>); // input and output
-    if (kept.bytes + bytes > kKeptBytes) {
-        kept.byLength.clear();
-        kept.bytes = 0;
-    }
-    kept.bytes += bytes;
-    return *kept.byLength.emplace(m, std::move(made)).first->second;
+    thread_local KeptByLength<KeptTransform<Real>> kept(std::size_t{16} << 20);
+    if (auto* transform = kept.find(m)) return *transform;
+    return kept.keep(m, std::make_unique<KeptTransform<Real>>(m), 2 * m * sizeof(std::complex<Real>)); // input and output
 }
 
 // The raised-cosine weights 0.5 - 0.5 cos(pi (e + 0.5) / taper) of the lines e = 0, 1, ... below

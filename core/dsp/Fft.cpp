@@ -1,5 +1,7 @@
 #include "core/dsp/Fft.h"
 
+#include "core/dsp/KeptByLength.h"
+
 #include <fftw3.h>
 
 #include <algorithm>
@@ -178,14 +180,8 @@ void RealFft<Real>::execute() {
 namespace {
 
 template <class Real>
-struct KeptRealFfts {
-    std::map<std::size_t, std::unique_ptr<RealFft<Real>>> byLength;
-    std::size_t bytes = 0;
-};
-
-template <class Real>
-KeptRealFfts<Real>& keptOnThisThread() {
-    thread_local KeptRealFfts<Real> kept;
+KeptByLength<RealFft<Real>>& keptOnThisThread() {
+    thread_local KeptByLength<RealFft<Real>> kept(std::size_t{32} << 20);
     return kept;
 }
 
@@ -193,25 +189,17 @@ KeptRealFfts<Real>& keptOnThisThread() {
 
 template <class Real>
 RealFft<Real>& keptRealFft(std::size_t n, std::optional<RealFft<Real>>& own) {
-    constexpr std::size_t kKeptBytes = std::size_t{32} << 20;
     auto& kept = keptOnThisThread<Real>();
-    if (auto it = kept.byLength.find(n); it != kept.byLength.end()) return *it->second;
+    if (auto* fft = kept.find(n)) return *fft;
     checkSize(n, "RealFft");
     const std::size_t bytes = n * sizeof(Real) + (n / 2 + 1) * sizeof(std::complex<Real>);
-    if (bytes > kKeptBytes) return own.emplace(n);
-    auto made = std::make_unique<RealFft<Real>>(n); // first: a failure leaves nothing behind
-    if (kept.bytes + bytes > kKeptBytes) {
-        kept.byLength.clear();
-        kept.bytes = 0;
-    }
-    RealFft<Real>& fft = *kept.byLength.emplace(n, std::move(made)).first->second;
-    kept.bytes += bytes;
-    return fft;
+    if (bytes > kept.budget()) return own.emplace(n);
+    return kept.keep(n, std::make_unique<RealFft<Real>>(n), bytes);
 }
 
 template <class Real>
 std::size_t keptRealFftBytes() {
-    return keptOnThisThread<Real>().bytes;
+    return keptOnThisThread<Real>().bytes();
 }
 
 template std::size_t keptRealFftBytes<double>();
