@@ -3,6 +3,7 @@
 #include "core/dsp/Fft.h"
 
 #include <cmath>
+#include <cstdlib>
 #include <complex>
 #include <numbers>
 #include <stdexcept>
@@ -26,18 +27,37 @@ int motionOrder(Quantity q) {
 
 int integrationSteps(Quantity from, Quantity to) { return motionOrder(from) - motionOrder(to); }
 
+namespace {
+
+// value / (2 pi f)^power for the small integer power of a conversion (|power| <= 4; negative
+// differentiates), by multiplications: a std::pow per line of every vibration spectrum took a
+// seventieth of a route's import.
+double divideByRadianPower(double value, double f, int power) {
+    const double w = 2.0 * std::numbers::pi * f;
+    double factor = 1.0;
+    for (int i = 0; i < std::abs(power); ++i) factor *= w;
+    return power > 0 ? value / factor : value * factor;
+}
+
+int linePower(int steps, SpectrumScale scale) { return scale == SpectrumScale::Psd ? 2 * steps : steps; }
+
+} // namespace
+
 double convertLine(double value, double f, Quantity from, Quantity to, SpectrumScale scale, double cutoffHz) {
     const int steps = integrationSteps(from, to);
     if (steps == 0) return value;
     if (f < cutoffHz || f <= 0) return 0.0;
-    const double power = scale == SpectrumScale::Psd ? 2.0 * steps : static_cast<double>(steps);
-    return value / std::pow(2.0 * std::numbers::pi * f, power);
+    return divideByRadianPower(value, f, linePower(steps, scale));
 }
 
 void convertSpectrum(Spectrum& s, Quantity to, double cutoffHz) {
-    if (integrationSteps(s.quantity, to) == 0) return;
-    for (std::size_t k = 0; k < s.values.size(); ++k)
-        s.values[k] = convertLine(s.values[k], s.frequencyHz(k), s.quantity, to, s.scale, cutoffHz);
+    const int steps = integrationSteps(s.quantity, to);
+    if (steps == 0) return;
+    const int power = linePower(steps, s.scale);
+    for (std::size_t k = 0; k < s.values.size(); ++k) {
+        const double f = s.frequencyHz(k);
+        s.values[k] = f < cutoffHz || f <= 0 ? 0.0 : divideByRadianPower(s.values[k], f, power);
+    }
     s.quantity = to;
 }
 

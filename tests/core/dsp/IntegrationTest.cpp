@@ -9,6 +9,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <numbers>
 
 namespace humwise::dsp {
 namespace {
@@ -57,6 +58,29 @@ TEST(Integration, LinesBelowTheCutoffAreZeroed) {
     convertSpectrum(s, Quantity::Velocity, 10.0);
     for (std::size_t k = 0; k < 10; ++k) EXPECT_EQ(s.values[k], 0.0);
     EXPECT_GT(s.values[100], 0.0);
+}
+
+// A PSD line converts with the square of the factor: acceleration to displacement divides by
+// (2 pi f)^4, displacement to acceleration multiplies by it (REFERENCE.md section 7).
+TEST(Integration, PsdLinesConvertWithTheSquareOfTheFactor) {
+    Spectrum s;
+    s.scale = SpectrumScale::Psd;
+    s.quantity = Quantity::Acceleration;
+    s.startHz = 0;
+    s.resolutionHz = 5.0;
+    s.values = {1.0, 2.0, 3.0, 4.0};
+    const double w10 = 2.0 * std::numbers::pi * 10.0, w15 = 2.0 * std::numbers::pi * 15.0;
+    auto d = s;
+    convertSpectrum(d, Quantity::Displacement, 6.0); // the 0 and 5 Hz lines lie below the cut-off
+    EXPECT_EQ(d.values[0], 0.0);
+    EXPECT_EQ(d.values[1], 0.0);
+    EXPECT_NEAR(d.values[2], 3.0 / std::pow(w10, 4), 1e-15 * 3.0 / std::pow(w10, 4));
+    EXPECT_NEAR(d.values[3], 4.0 / std::pow(w15, 4), 1e-15 * 4.0 / std::pow(w15, 4));
+    for (std::size_t k = 0; k < s.values.size(); ++k)
+        EXPECT_EQ(d.values[k], convertLine(s.values[k], s.frequencyHz(k), Quantity::Acceleration, Quantity::Displacement,
+                                           SpectrumScale::Psd, 6.0));
+    convertSpectrum(d, Quantity::Acceleration, 6.0);
+    EXPECT_NEAR(d.values[3], 4.0, 4.0 * 1e-14);
 }
 
 TEST(Integration, WaveformIntegrationMatchesTheSpectralRule) {
