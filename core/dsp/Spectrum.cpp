@@ -43,12 +43,11 @@ std::shared_ptr<const PreparedWindow> preparedWindow(const WindowSpec& spec, std
         if (auto it = cache.find(key); it != cache.end()) return it->second;
     }
     auto p = std::make_shared<PreparedWindow>();
-    p->samples = cachedWindow(spec, n);
+    const SummedWindow window = cachedWindow(spec, n);
+    p->samples = window.samples;
+    p->s1 = window.s1;
+    p->s2 = window.s2;
     const auto& w = *p->samples;
-    for (double v : w) {
-        p->s1 += v;
-        p->s2 += v * v;
-    }
     RealFft<double> fft(n);
     std::copy(w.begin(), w.end(), fft.input().begin());
     fft.execute();

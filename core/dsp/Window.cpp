@@ -1,6 +1,7 @@
 #include "core/dsp/Window.h"
 
 #include "core/dsp/Fft.h"
+#include "core/util/Sums.h"
 
 #include <algorithm>
 #include <array>
@@ -138,15 +139,18 @@ std::vector<double> makeWindow(const WindowSpec& spec, std::size_t n, WindowSymm
     return w;
 }
 
-std::shared_ptr<const std::vector<double>> cachedWindow(const WindowSpec& spec, std::size_t n) {
+SummedWindow cachedWindow(const WindowSpec& spec, std::size_t n) {
     using Key = std::tuple<int, double, std::size_t>;
     static std::mutex mutex;
-    static std::map<Key, std::shared_ptr<const std::vector<double>>> cache;
+    static std::map<Key, SummedWindow> cache;
     const Key key{static_cast<int>(spec.kind), spec.kind == WindowKind::Kaiser ? spec.kaiserBeta : 0.0, n};
     std::lock_guard lock(mutex);
     if (auto it = cache.find(key); it != cache.end()) return it->second;
     if (cache.size() >= 256) cache.clear(); // bounded: a route uses a handful of lengths
-    auto w = std::make_shared<const std::vector<double>>(makeWindow(spec, n));
+    SummedWindow w;
+    w.samples = std::make_shared<const std::vector<double>>(makeWindow(spec, n));
+    w.s1 = util::sumOf(*w.samples);
+    w.s2 = util::deviationSums(*w.samples, 0.0).squares;
     cache.emplace(key, w);
     return w;
 }

@@ -44,9 +44,17 @@ std::string windowName(const WindowSpec& spec); // "hann", "kaiser:9.425", ...
 std::vector<double> makeWindow(const WindowSpec& spec, std::size_t n,
                                WindowSymmetry symmetry = WindowSymmetry::Periodic);
 
+// A window and its sums S1 = sum w[n], S2 = sum w[n]^2 (the scaling sums of Heinzel, Ruediger and
+// Schilling, "Spectrum and spectral density estimation by the DFT", 2002).
+struct SummedWindow {
+    std::shared_ptr<const std::vector<double>> samples;
+    double s1 = 0, s2 = 0;
+};
+
 // The same window from a small process-wide cache (thread-safe), for hot paths that ask for the
-// same window again and again (every spectrum of a route uses a handful of lengths).
-std::shared_ptr<const std::vector<double>> cachedWindow(const WindowSpec& spec, std::size_t n);
+// same window again and again (every spectrum of a route uses a handful of lengths), with its
+// sums computed once (for a zoom's 200 000-point window, two passes per record otherwise).
+SummedWindow cachedWindow(const WindowSpec& spec, std::size_t n);
 
 // Modified Bessel function of the first kind, order 0 (power series; relative error < 1e-15
 // for the arguments windows use).

@@ -28,15 +28,15 @@ Result<ZoomTransform, AnalysisError> ZoomTransform::of(std::span<const double> x
 
     // Cached: a route zooms every motor's current records, all of one length (the window of
     // 200 000 points costs 800 000 cosines to build).
-    const auto cached = cachedWindow(window, n);
-    const std::vector<double>& w = *cached;
+    const SummedWindow cached = cachedWindow(window, n);
+    const std::vector<double>& w = *cached.samples;
     ZoomTransform t;
     t.m_fs = fs;
     t.m_n = n;
     t.m_nfft = nfft;
     t.m_window = window;
-    t.m_s1 = util::sumOf(w);
-    t.m_s2 = util::deviationSums(w, 0.0).squares;
+    t.m_s1 = cached.s1;
+    t.m_s2 = cached.s2;
     const double mean = util::sumOf(x) / static_cast<double>(n);
     std::optional<RealFft<double>> own;
     RealFft<double>& fft = keptRealFft<double>(nfft, own);

@@ -61,6 +61,21 @@ TEST(Window, PeriodicWindowsArePeakNormalisedAndDftEven) {
     }
 }
 
+// The cached window carries its sums S1, S2 (as Heinzel, Ruediger & Schilling 2002 define them):
+// for the periodic Hann window w = 1/2 - cos(2 pi n / N) / 2, S1 = N / 2 and S2 = 3 N / 8 (the
+// cosine sums to zero over whole periods, its square to N / 2). A second call gives the same
+// samples.
+TEST(Window, CachedWindowCarriesItsSums) {
+    const auto hann = cachedWindow({WindowKind::Hann}, 1024);
+    ASSERT_EQ(hann.samples->size(), 1024u);
+    EXPECT_NEAR(hann.s1, 512.0, 1e-9);
+    EXPECT_NEAR(hann.s2, 384.0, 1e-9);
+    EXPECT_EQ(cachedWindow({WindowKind::Hann}, 1024).samples, hann.samples);
+    const auto flat = cachedWindow({WindowKind::Rectangular}, 100);
+    EXPECT_EQ(flat.s1, 100.0);
+    EXPECT_EQ(flat.s2, 100.0);
+}
+
 TEST(Window, ParsesNamesAndKaiserBeta) {
     EXPECT_EQ(parseWindowSpec("hann")->kind, WindowKind::Hann);
     EXPECT_EQ(parseWindowSpec("FlatTop")->kind, WindowKind::FlatTop);
