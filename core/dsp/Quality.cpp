@@ -5,6 +5,7 @@
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
+#include <array>
 #include <cfloat>
 #include <cmath>
 #include <cstdio>
@@ -90,9 +91,52 @@ std::string_view qualityFlagName(QualityFlag flag) {
     return "?";
 }
 
+namespace {
+
+// The drift check's blocks: the record in kDriftBlocks blocks of equal length (the last few
+// samples, fewer than kDriftBlocks, belong to none).
+constexpr std::size_t kDriftBlocks = 8;
+constexpr std::size_t kDriftMinSamples = 800;
+
+std::span<const double> driftBlock(std::span<const double> x, std::size_t b) {
+    const std::size_t len = x.size() / kDriftBlocks;
+    return x.subspan(b * len, len);
+}
+
+struct Extents {
+    SampleExtent whole;
+    std::array<SampleExtent, kDriftBlocks> blocks{};
+    bool hasBlocks = false;
+};
+
+// The record's extent and, when the drift check will want them, its blocks' - the record's then
+// combined from the blocks' and the tail's, so that the samples are read once for both.
+Extents extentsOf(std::span<const double> x, bool wantBlocks) {
+    Extents out;
+    if (!wantBlocks) {
+        out.whole = sampleExtent(x);
+        return out;
+    }
+    out.hasBlocks = true;
+    const std::size_t covered = x.size() / kDriftBlocks * kDriftBlocks;
+    out.whole = sampleExtent(x.subspan(covered));
+    for (std::size_t b = 0; b < kDriftBlocks; ++b) {
+        const SampleExtent be = out.blocks[b] = sampleExtent(driftBlock(x, b));
+        out.whole.lo = std::min(out.whole.lo, be.lo);
+        out.whole.hi = std::max(out.whole.hi, be.hi);
+        out.whole.sum += be.sum;
+        out.whole.nonFinite += be.nonFinite;
+    }
+    return out;
+}
+
+} // namespace
+
 std::vector<QualityIssue> assessQuality(std::span<const double> x, const QualityRequest& r) {
     std::vector<QualityIssue> issues;
-    const SampleExtent e = sampleExtent(x);
+    const bool checksDrift = isMotion(r.quantity) && x.size() >= kDriftMinSamples;
+    const Extents extents = extentsOf(x, checksDrift);
+    const SampleExtent& e = extents.whole;
     const double lo = e.lo, hi = e.hi;
     if (e.nonFinite > 0)
         issues.push_back({QualityFlag::NonFinite, format("%.0f of %.0f samples are NaN or infinite", double(e.nonFinite), double(x.size()))});
@@ -115,15 +159,13 @@ std::vector<QualityIssue> assessQuality(std::span<const double> x, const Quality
     if (runs.atLevel >= 3)
         issues.push_back({QualityFlag::Clipped, format("%.0f runs of 3 or more samples sit at the limit %.6g", double(runs.atLevel), extreme)});
 
-    if (isMotion(r.quantity) && finite >= 800) {
+    if (extents.hasBlocks && finite >= kDriftMinSamples) {
         const double mean = e.sum / static_cast<double>(finite);
-        constexpr std::size_t kBlocks = 8;
-        const std::size_t len = x.size() / kBlocks;
         double bmin = INFINITY, bmax = -INFINITY, residual = 0;
         std::size_t residualCount = 0;
-        for (std::size_t b = 0; b < kBlocks; ++b) {
-            const auto block = x.subspan(b * len, len);
-            const SampleExtent be = sampleExtent(block);
+        for (std::size_t b = 0; b < kDriftBlocks; ++b) {
+            const auto block = driftBlock(x, b);
+            const SampleExtent& be = extents.blocks[b];
             const std::size_t bc = block.size() - be.nonFinite;
             if (bc == 0) continue;
             const double bm = be.sum / static_cast<double>(bc);

@@ -94,6 +94,25 @@ TEST(Quality, RunsAcrossChunkEdgesAreCountedExactly) {
     EXPECT_EQ(detailOf(assessQuality(x, {}), QualityFlag::FlatLine), "5130 identical consecutive samples (10.0 % of the record)");
 }
 
+// On a motion channel the record's extent is combined from the drift check's eight blocks and
+// the few samples after them (Quality.cpp): a non-finite sample and the record's extreme in that
+// tail count.
+TEST(Quality, TheTailAfterTheDriftBlocksCounts) {
+    auto x = healthy();
+    x.resize(x.size() + 5, 0.1); // 51205 samples: blocks of 6400, a tail of 5
+    x.back() = std::numeric_limits<double>::infinity();
+    const auto issues = assessQuality(x, {});
+    EXPECT_EQ(detailOf(issues, QualityFlag::NonFinite), "1 of 51205 samples are NaN or infinite");
+    // Clipped at 0.9 in the blocks, but the record's extreme is a spike of 5 in the tail: the
+    // runs at 0.9 are not at the limit.
+    auto y = healthy();
+    for (double& v : y) v = std::clamp(v, -0.9, 0.9);
+    y.insert(y.end(), {0.1, 5.0, 0.1, 0.1, 0.1});
+    EXPECT_FALSE(has(assessQuality(y, {}), QualityFlag::Clipped));
+    y.resize(y.size() - 5);
+    EXPECT_TRUE(has(assessQuality(y, {}), QualityFlag::Clipped));
+}
+
 TEST(Quality, TooShort) {
     QualityRequest r;
     r.minSamples = 1'000'000;
