@@ -146,8 +146,9 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
 
 } // namespace
 
-BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
-    const auto cut = cutBand<double>(spectrum, loHz, hiHz, minLength, taperFraction, 1);
+BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction,
+                       std::size_t lengthMultiple) {
+    const auto cut = cutBand<double>(spectrum, loHz, hiHz, minLength, taperFraction, lengthMultiple);
     BandSignal out;
     const auto data = cut.inverse->output();
     out.samples.assign(data.begin(), data.end());

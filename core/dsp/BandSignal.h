@@ -41,9 +41,11 @@ struct BandSignal {
 };
 
 // Cuts [loHz, hiHz] out of `spectrum`; the output has at least `minLength` samples (more if the
-// band needs them) and a length FFTW transforms fast. taperFraction in [0, 0.5].
+// band needs them) and a length FFTW transforms fast, a multiple of `lengthMultiple` (Fft.h,
+// nextFastFftSize: 8 avoids lengths such as 5^2 7^3 that FFTW transforms at half the speed).
+// taperFraction in [0, 0.5].
 BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength = 0,
-                       double taperFraction = 0.1);
+                       double taperFraction = 0.1, std::size_t lengthMultiple = 1);
 
 // The moments of the band's complex envelope z (as extractBand would give it), computed where the
 // inverse transform leaves it, without copying the signal out: what a kurtogram needs per band.
