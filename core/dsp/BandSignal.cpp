@@ -7,6 +7,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstring>
 #include <map>
 #include <memory>
 #include <numbers>
@@ -160,10 +161,10 @@ BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz,
 
 namespace {
 
-// sum |z|^2 and sum |z|^4, accumulated in double whatever the transform's precision, in eight
-// partial sums so that the additions do not wait on each other (vectorises).
+// sum |z|^2 and sum |z|^4, accumulated in double, in eight partial sums so that the additions do
+// not wait on each other (vectorises).
 template <class Real>
-HUMWISE_VECTOR_CLONES std::pair<double, double> powerSums(const std::complex<Real>* z, std::size_t n) {
+HUMWISE_VECTOR_CLONES std::pair<double, double> powerSumsInDouble(const std::complex<Real>* z, std::size_t n) {
     double s2[8] = {0, 0, 0, 0, 0, 0, 0, 0}, s4[8] = {0, 0, 0, 0, 0, 0, 0, 0};
     std::size_t i = 0;
     for (; i + 8 <= n; i += 8)
@@ -184,6 +185,57 @@ HUMWISE_VECTOR_CLONES std::pair<double, double> powerSums(const std::complex<Rea
         m4 += s4[j];
     }
     return {m2, m4};
+}
+
+// The same for a single-precision transform, in float vectors of 8 lanes over the interleaved
+// real and imaginary parts: q = f^2 of every float sums to sum |z|^2 as it stands; q plus q with
+// the two floats of each sample swapped holds |z|^2 twice per sample, so the sum of its squares is
+// twice sum |z|^4. Runs of 64 terms per lane (good to about 4e-6 of their size) are added in
+// double; the kurtogram compares kurtoses to 3 digits (BandSignal.h). A third of the time of the
+// double version, which widens every float first. |z|^4 leaves the float range above |z| ~ 4e9:
+// such a band is summed again in double.
+using FloatLanes = float __attribute__((vector_size(32)));
+using LaneIndex = int __attribute__((vector_size(32)));
+
+HUMWISE_VECTOR_CLONES std::pair<double, double> floatLanePowerSums(const std::complex<float>* z, std::size_t n) {
+    const auto* f = reinterpret_cast<const float*>(z); // std::complex<float> is two floats (C++ [complex.numbers])
+    constexpr std::size_t kStep = 16, kRun = 64 * kStep; // floats per step (two vectors) and per run
+    const LaneIndex swapPairs = {1, 0, 3, 2, 5, 4, 7, 6};
+    const std::size_t floats = 2 * n;
+    double m2 = 0, m4 = 0;
+    std::size_t i = 0;
+    while (i + kStep <= floats) {
+        FloatLanes a2 = {}, b2 = {}, a4 = {}, b4 = {};
+        const std::size_t runEnd = i + std::min(kRun, (floats - i) / kStep * kStep);
+        for (; i < runEnd; i += kStep) {
+            FloatLanes a, b;
+            std::memcpy(&a, f + i, sizeof a);
+            std::memcpy(&b, f + i + 8, sizeof b);
+            const FloatLanes qa = a * a, qb = b * b;
+            const FloatLanes pa = qa + __builtin_shuffle(qa, swapPairs), pb = qb + __builtin_shuffle(qb, swapPairs);
+            a2 += qa;
+            b2 += qb;
+            a4 += pa * pa;
+            b4 += pb * pb;
+        }
+        for (int j = 0; j < 8; ++j) {
+            m2 += static_cast<double>(a2[j]) + static_cast<double>(b2[j]);
+            m4 += 0.5 * (static_cast<double>(a4[j]) + static_cast<double>(b4[j]));
+        }
+    }
+    for (; i < floats; i += 2) {
+        const double p = std::norm(std::complex<double>(f[i], f[i + 1]));
+        m2 += p;
+        m4 += p * p;
+    }
+    return {m2, m4};
+}
+
+std::pair<double, double> powerSums(const std::complex<double>* z, std::size_t n) { return powerSumsInDouble(z, n); }
+
+std::pair<double, double> powerSums(const std::complex<float>* z, std::size_t n) {
+    const auto sums = floatLanePowerSums(z, n);
+    return std::isfinite(sums.second) ? sums : powerSumsInDouble(z, n);
 }
 
 template <class Real>

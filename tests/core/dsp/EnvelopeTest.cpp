@@ -133,6 +133,20 @@ TEST(Kurtogram, SinglePrecisionBandMomentsAgreeWithDouble) {
     EXPECT_GT(bands, 20u);
 }
 
+// The single-precision moments are summed in float lanes (BandSignal.cpp); a band whose |z|^4
+// leaves the float range (|z| above ~4e9) is summed again in double and still agrees.
+TEST(Kurtogram, SinglePrecisionMomentsOfHugeSamplesStayFinite) {
+    const double fs = 25600;
+    std::vector<double> x = test::gaussianNoise(3e10, 25600, 5);
+    const RecordSpectrum spectrum(x, fs);
+    const auto d = bandMoments(spectrum, 1000, 5000, 0, 0.1, Precision::Double);
+    const auto f = bandMoments(spectrum, 1000, 5000, 0, 0.1, Precision::Single);
+    ASSERT_TRUE(std::isfinite(f.kurtosis));
+    EXPECT_GT(f.meanSquare, 1e19); // |z|^4 ~ 1e41: beyond float
+    EXPECT_NEAR(f.kurtosis, d.kurtosis, 1e-5);
+    EXPECT_NEAR(f.meanSquare, d.meanSquare, 1e-5 * d.meanSquare);
+}
+
 // Band transforms are kept per thread and length and reused (BandSignal.cpp): a band cut after
 // others of the same and other lengths - a wider one left the buffer full of its own lines -
 // gives exactly what it gave the first time, and a band signal is what it was.
