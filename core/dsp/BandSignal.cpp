@@ -13,6 +13,7 @@
 #include <numbers>
 #include <optional>
 #include <stdexcept>
+#include <type_traits>
 #include <utility>
 #include <vector>
 
@@ -93,12 +94,27 @@ std::size_t bandLength(std::size_t n, std::size_t multiple) {
     return lastLength;
 }
 
+// The one-sided lines a band is cut from: `scale` times bins[k] is line k with the analytic
+// signal's middle weight 2/N (the DC and Nyquist lines get half of it below). Single-precision
+// lines (SingleLines) come scaled: their scale is 1.
+template <class Source>
+struct LineSource {
+    std::span<const std::complex<Source>> bins;
+    double scale = 1;
+    std::size_t recordLength = 0;
+    double lineSpacingHz = 0;
+};
+
+LineSource<double> linesOf(const RecordSpectrum& spectrum) {
+    return {spectrum.bins(), 2.0 / static_cast<double>(spectrum.length()), spectrum.length(), spectrum.lineSpacingHz()};
+}
+
 // sizeMultiple: the transform length is nextFastFftSize(max(lines, minLength), sizeMultiple).
-template <class Real>
-BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction,
+template <class Real, class Source>
+BandCut<Real> cutBand(const LineSource<Source>& source, double loHz, double hiHz, std::size_t minLength, double taperFraction,
                       std::size_t sizeMultiple) {
-    const double df = spectrum.lineSpacingHz();
-    const std::size_t last = spectrum.bins().size() - 1;
+    const double df = source.lineSpacingHz;
+    const std::size_t last = source.bins.size() - 1;
     if (!(hiHz > loHz) || loHz < 0)
         throw std::invalid_argument("extractBand: the band must satisfy 0 <= lo < hi");
     // Clamped while still floating point: converting a line number beyond any integer (hiHz far
@@ -115,13 +131,12 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
         std::fill(data.begin() + static_cast<std::ptrdiff_t>(width), data.begin() + static_cast<std::ptrdiff_t>(kept.written),
                   std::complex<Real>(0, 0));
     kept.written = width;
-    const auto bins = spectrum.bins();
-    const double scale = 2.0 / static_cast<double>(spectrum.length());
     // Every line as a middle one (2/N), then the tapered edges, then the DC and (even N) Nyquist
     // lines, which the analytic signal weights by 1/N (Marple 1999, "Computing the discrete-time
     // analytic signal via FFT") and which can only be the band's first and last. Plain loops
     // that vectorise: a per-line weight lookup here was a twentieth of the band search.
-    scaledLines(bins.data() + kl, width, scale, data.data());
+    if constexpr (std::is_same_v<Source, double>) scaledLines(source.bins.data() + kl, width, source.scale, data.data());
+    else std::copy_n(source.bins.data() + kl, width, data.data()); // SingleLines: scaled when narrowed
     const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
     if (taper > 0) {
         const auto edgeWeights = edgeTaper(taper);
@@ -135,7 +150,7 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
         }
     }
     if (kl == 0) data[0] *= Real(0.5);
-    if (spectrum.length() % 2 == 0 && kh == spectrum.length() / 2) data[width - 1] *= Real(0.5);
+    if (source.recordLength % 2 == 0 && kh == source.recordLength / 2) data[width - 1] *= Real(0.5);
     kept.fft.execute();
     BandCut<Real> cut;
     cut.inverse = &kept.fft;
@@ -149,7 +164,7 @@ BandCut<Real> cutBand(const RecordSpectrum& spectrum, double loHz, double hiHz, 
 
 BandSignal extractBand(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction,
                        std::size_t lengthMultiple) {
-    const auto cut = cutBand<double>(spectrum, loHz, hiHz, minLength, taperFraction, lengthMultiple);
+    const auto cut = cutBand<double>(linesOf(spectrum), loHz, hiHz, minLength, taperFraction, lengthMultiple);
     BandSignal out;
     const auto data = cut.inverse->output();
     out.samples.assign(data.begin(), data.end());
@@ -238,11 +253,11 @@ std::pair<double, double> powerSums(const std::complex<float>* z, std::size_t n)
     return std::isfinite(sums.second) ? sums : powerSumsInDouble(z, n);
 }
 
-template <class Real>
-BandMoments momentsOf(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+template <class Real, class Source>
+BandMoments momentsOf(const LineSource<Source>& source, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
     // Only the moments are wanted, not samples at given instants: the length may be rounded up
     // to a multiple of 8, which FFTW transforms faster (Fft.h).
-    const auto cut = cutBand<Real>(spectrum, loHz, hiHz, minLength, taperFraction, 8);
+    const auto cut = cutBand<Real>(source, loHz, hiHz, minLength, taperFraction, 8);
     const auto data = cut.inverse->output();
     auto [m2, m4] = powerSums(data.data(), data.size());
     const double n = static_cast<double>(data.size());
@@ -253,9 +268,19 @@ BandMoments momentsOf(const RecordSpectrum& spectrum, double loHz, double hiHz, 
 
 } // namespace
 
+SingleLines::SingleLines(const RecordSpectrum& spectrum)
+    : m_lines(spectrum.bins().size()), m_recordLength(spectrum.length()), m_lineSpacingHz(spectrum.lineSpacingHz()) {
+    scaledLines(spectrum.bins().data(), m_lines.size(), 2.0 / static_cast<double>(spectrum.length()), m_lines.data());
+}
+
 BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength, double taperFraction, Precision precision) {
-    return precision == Precision::Single ? momentsOf<float>(spectrum, loHz, hiHz, minLength, taperFraction)
-                                          : momentsOf<double>(spectrum, loHz, hiHz, minLength, taperFraction);
+    return precision == Precision::Single ? bandMoments(SingleLines(spectrum), loHz, hiHz, minLength, taperFraction)
+                                          : momentsOf<double>(linesOf(spectrum), loHz, hiHz, minLength, taperFraction);
+}
+
+BandMoments bandMoments(const SingleLines& lines, double loHz, double hiHz, std::size_t minLength, double taperFraction) {
+    const LineSource<float> source{lines.m_lines, 1.0, lines.m_recordLength, lines.m_lineSpacingHz};
+    return momentsOf<float>(source, loHz, hiHz, minLength, taperFraction);
 }
 
 } // namespace humwise::dsp

@@ -60,4 +60,19 @@ enum class Precision { Double, Single };
 BandMoments bandMoments(const RecordSpectrum& spectrum, double loHz, double hiHz, std::size_t minLength = 0, double taperFraction = 0.1,
                         Precision precision = Precision::Double);
 
+// The record's lines narrowed to single precision once, already scaled by 2/N: for many
+// single-precision band cuts of one record (the kurtogram's hundreds), each then copies half the
+// bytes and scales nothing (bandMoments(spectrum, ..., Precision::Single) makes one per call).
+class SingleLines {
+public:
+    explicit SingleLines(const RecordSpectrum& spectrum);
+
+private:
+    friend BandMoments bandMoments(const SingleLines&, double, double, std::size_t, double);
+    std::vector<std::complex<float>> m_lines;
+    std::size_t m_recordLength = 0;
+    double m_lineSpacingHz = 0;
+};
+BandMoments bandMoments(const SingleLines& lines, double loHz, double hiHz, std::size_t minLength = 0, double taperFraction = 0.1);
+
 } // namespace humwise::dsp

@@ -34,6 +34,8 @@ Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& 
     result.best.kurtosis = -INFINITY;
     const double df = spectrum.lineSpacingHz();
     const double density = averageDensity(spectrum);
+    // The band search compares kurtoses: single precision is plenty (BandSignal.h).
+    const SingleLines lines(spectrum);
     // Levels in Antoni's order: 0, 1, 1.6, 2, 2.6, ... (k with 2^k bands, k + log2 3 with 3 * 2^k).
     std::vector<std::pair<double, double>> levels; // (level, band count)
     for (int k = 0; k <= maxLevel; ++k) {
@@ -53,8 +55,7 @@ Kurtogram fastKurtogram(const RecordSpectrum& spectrum, const KurtogramRequest& 
                 continue;
             // Twice the band's lines: |z|^2 and |z|^4 then keep their full bandwidth.
             const auto widthLines = static_cast<std::size_t>(std::ceil(width / df));
-            // The band search compares kurtoses: single precision is plenty (BandSignal.h).
-            const BandMoments moments = bandMoments(spectrum, cell.loHz, cell.hiHz, 2 * widthLines, 0.1, Precision::Single);
+            const BandMoments moments = bandMoments(lines, cell.loHz, cell.hiHz, 2 * widthLines, 0.1);
             cell.kurtosis = moments.kurtosis;
             // z is the amplitude envelope (BandSignal.h), so the band's real signal has mean square <|z|^2> / 2.
             const double bandDensity = 0.5 * moments.meanSquare / cell.bandwidthHz();
