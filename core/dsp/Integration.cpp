@@ -3,8 +3,8 @@
 #include "core/dsp/Fft.h"
 
 #include <cmath>
-#include <cstdlib>
 #include <complex>
+#include <cstdlib>
 #include <numbers>
 #include <stdexcept>
 #include <string>

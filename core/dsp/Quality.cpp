@@ -78,21 +78,6 @@ Runs runsOf(std::span<const double> x, double level, std::size_t minRun) {
     return r;
 }
 
-} // namespace
-
-std::string_view qualityFlagName(QualityFlag flag) {
-    switch (flag) {
-    case QualityFlag::NonFinite: return "non_finite";
-    case QualityFlag::FlatLine: return "flat_line";
-    case QualityFlag::Clipped: return "clipped";
-    case QualityFlag::BiasDrift: return "bias_drift";
-    case QualityFlag::TooShort: return "too_short";
-    }
-    return "?";
-}
-
-namespace {
-
 // The drift check's blocks: the record in kDriftBlocks blocks of equal length (the last few
 // samples, fewer than kDriftBlocks, belong to none).
 constexpr std::size_t kDriftBlocks = 8;
@@ -131,6 +116,17 @@ Extents extentsOf(std::span<const double> x, bool wantBlocks) {
 }
 
 } // namespace
+
+std::string_view qualityFlagName(QualityFlag flag) {
+    switch (flag) {
+    case QualityFlag::NonFinite: return "non_finite";
+    case QualityFlag::FlatLine: return "flat_line";
+    case QualityFlag::Clipped: return "clipped";
+    case QualityFlag::BiasDrift: return "bias_drift";
+    case QualityFlag::TooShort: return "too_short";
+    }
+    return "?";
+}
 
 std::vector<QualityIssue> assessQuality(std::span<const double> x, const QualityRequest& r) {
     std::vector<QualityIssue> issues;
