@@ -6,6 +6,7 @@
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
+#include <cassert>
 #include <cmath>
 #include <cstring>
 #include <map>
@@ -135,8 +136,12 @@ BandCut<Real> cutBand(const LineSource<Source>& source, double loHz, double hiHz
     // lines, which the analytic signal weights by 1/N (Marple 1999, "Computing the discrete-time
     // analytic signal via FFT") and which can only be the band's first and last. Plain loops
     // that vectorise: a per-line weight lookup here was a twentieth of the band search.
-    if constexpr (std::is_same_v<Source, double>) scaledLines(source.bins.data() + kl, width, source.scale, data.data());
-    else std::copy_n(source.bins.data() + kl, width, data.data()); // SingleLines: scaled when narrowed
+    if constexpr (std::is_same_v<Source, double>) {
+        scaledLines(source.bins.data() + kl, width, source.scale, data.data());
+    } else {
+        assert(source.scale == 1.0); // SingleLines: scaled when narrowed
+        std::copy_n(source.bins.data() + kl, width, data.data());
+    }
     const double taper = std::clamp(taperFraction, 0.0, 0.5) * static_cast<double>(width);
     if (taper > 0) {
         const auto edgeWeights = edgeTaper(taper);
@@ -207,15 +212,14 @@ HUMWISE_VECTOR_CLONES std::pair<double, double> powerSumsInDouble(const std::com
 // the two floats of each sample swapped holds |z|^2 twice per sample, so the sum of its squares is
 // twice sum |z|^4. Runs of 64 terms per lane (good to about 4e-6 of their size) are added in
 // double; the kurtogram compares kurtoses to 3 digits (BandSignal.h). A third of the time of the
-// double version, which widens every float first. |z|^4 leaves the float range above |z| ~ 4e9:
-// such a band is summed again in double.
+// double version, which widens every float first. A run's sum of |z|^4 leaves the float range
+// from |z| ~ 1e9, and |z|^4 falls below it (losing digits, then to zero) under |z| ~ 1e-9: such
+// bands are summed again in double (powerSums below).
 using FloatLanes = float __attribute__((vector_size(32)));
-using LaneIndex = int __attribute__((vector_size(32)));
 
 HUMWISE_VECTOR_CLONES std::pair<double, double> floatLanePowerSums(const std::complex<float>* z, std::size_t n) {
     const auto* f = reinterpret_cast<const float*>(z); // std::complex<float> is two floats (C++ [complex.numbers])
     constexpr std::size_t kStep = 16, kRun = 64 * kStep; // floats per step (two vectors) and per run
-    const LaneIndex swapPairs = {1, 0, 3, 2, 5, 4, 7, 6};
     const std::size_t floats = 2 * n;
     double m2 = 0, m4 = 0;
     std::size_t i = 0;
@@ -227,7 +231,8 @@ HUMWISE_VECTOR_CLONES std::pair<double, double> floatLanePowerSums(const std::co
             std::memcpy(&a, f + i, sizeof a);
             std::memcpy(&b, f + i + 8, sizeof b);
             const FloatLanes qa = a * a, qb = b * b;
-            const FloatLanes pa = qa + __builtin_shuffle(qa, swapPairs), pb = qb + __builtin_shuffle(qb, swapPairs);
+            const FloatLanes pa = qa + __builtin_shufflevector(qa, qa, 1, 0, 3, 2, 5, 4, 7, 6);
+            const FloatLanes pb = qb + __builtin_shufflevector(qb, qb, 1, 0, 3, 2, 5, 4, 7, 6);
             a2 += qa;
             b2 += qb;
             a4 += pa * pa;
@@ -248,9 +253,13 @@ HUMWISE_VECTOR_CLONES std::pair<double, double> floatLanePowerSums(const std::co
 
 std::pair<double, double> powerSums(const std::complex<double>* z, std::size_t n) { return powerSumsInDouble(z, n); }
 
+// Float lanes unless their sums left the float range: above it |z|^4 overflows; a mean |z|^2
+// below 1e-15 means samples under ~1e-8 whose |z|^4 (below 1e-30) nears float's smallest normal
+// numbers (1.2e-38) and loses digits.
 std::pair<double, double> powerSums(const std::complex<float>* z, std::size_t n) {
     const auto sums = floatLanePowerSums(z, n);
-    return std::isfinite(sums.second) ? sums : powerSumsInDouble(z, n);
+    const bool inFloatRange = std::isfinite(sums.second) && sums.first >= 1e-15 * static_cast<double>(n);
+    return inFloatRange ? sums : powerSumsInDouble(z, n);
 }
 
 template <class Real, class Source>

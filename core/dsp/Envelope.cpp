@@ -50,7 +50,7 @@ Result<EnvelopeResult, AnalysisError> envelopeSpectrum(const RecordSpectrum& rec
     try {
         // A length that is a multiple of 8: the envelope's rate is free (its spectrum's lines are
         // set by the resolution below), and a length such as 25 725 = 3 5^2 7^3 made both this
-        // transform and the envelope's segments (12 863 = 19 677 points) slow to plan and run.
+        // transform and the envelope's segments (12 863 = 19 x 677 points) slow to plan and run.
         band = extractBand(record, out.bandLowHz, out.bandHighHz, std::max(2 * widthLines, fmaxLines), 0.1, 8);
     } catch (const std::invalid_argument& e) {
         return fail(AnalysisError{Code::InvalidRequest, std::string("envelope: ") + e.what()});

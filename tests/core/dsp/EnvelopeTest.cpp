@@ -9,6 +9,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <tuple>
 #include <limits>
 #include <numbers>
 #include <random>
@@ -145,6 +146,33 @@ TEST(Kurtogram, SinglePrecisionMomentsOfHugeSamplesStayFinite) {
     EXPECT_GT(f.meanSquare, 1e19); // |z|^4 ~ 1e41: beyond float
     EXPECT_NEAR(f.kurtosis, d.kurtosis, 1e-5);
     EXPECT_NEAR(f.meanSquare, d.meanSquare, 1e-5 * d.meanSquare);
+}
+
+// ... and a band of tiny samples, whose |z|^4 (about 1e-48 here) lies below float's range: summed
+// in float it would come out 0 and the kurtosis -2; it is summed again in double.
+TEST(Kurtogram, SinglePrecisionMomentsOfTinySamplesKeepTheirDigits) {
+    const double fs = 25600;
+    std::vector<double> x = test::gaussianNoise(1e-12, 25600, 6);
+    const RecordSpectrum spectrum(x, fs);
+    const auto d = bandMoments(spectrum, 1000, 5000, 0, 0.1, Precision::Double);
+    const auto f = bandMoments(spectrum, 1000, 5000, 0, 0.1, Precision::Single);
+    EXPECT_LT(d.meanSquare, 1e-23);
+    EXPECT_NEAR(f.kurtosis, d.kurtosis, 1e-5);
+    EXPECT_NEAR(f.meanSquare, d.meanSquare, 1e-5 * d.meanSquare);
+}
+
+// extractBand's length is a multiple of the one asked for (the envelope asks for 8: Envelope.cpp)
+// and holds at least the band's lines and the asked minimum.
+TEST(Envelope, BandSignalLengthIsAMultipleOfTheAskedOne) {
+    const double fs = 25600;
+    const RecordSpectrum spectrum(test::gaussianNoise(0.3, 102400, 3), fs); // 0.25 Hz lines
+    for (const auto& [lo, hi, minLength] : {std::tuple{3000.0, 3800.0, 0u}, {1066.7, 5333.3, 34134u}, {9000.0, 12800.0, 25725u}}) {
+        const auto band = extractBand(spectrum, lo, hi, minLength, 0.1, 8);
+        EXPECT_EQ(band.samples.size() % 8, 0u) << lo << " - " << hi << " Hz";
+        EXPECT_GE(band.samples.size(), std::max<std::size_t>(minLength, static_cast<std::size_t>((hi - lo) / 0.25)));
+        EXPECT_DOUBLE_EQ(band.sampleRateHz, 0.25 * static_cast<double>(band.samples.size()));
+    }
+    EXPECT_EQ(extractBand(spectrum, 9000.0, 12800.0, 25725, 0.1, 1).samples.size(), 25725u); // 3 5^2 7^3: fast, odd
 }
 
 // Band transforms are kept per thread and length and reused (BandSignal.cpp): a band cut after
