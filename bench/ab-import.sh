@@ -21,21 +21,35 @@ route=$(realpath "$3")
 rounds=${4:-6}
 for f in "$old" "$new"; do [[ -x $f ]] || { echo "ab-import: $f is not an executable" >&2; exit 2; }; done
 [[ -f $route/fleet.json && -d $route/walkdown ]] || { echo "ab-import: $route needs fleet.json and walkdown/" >&2; exit 2; }
+[[ $rounds =~ ^[1-9][0-9]*$ ]] || { echo "ab-import: ROUNDS must be a whole number of 1 or more, got '$rounds'" >&2; exit 2; }
 
 work=$(mktemp -d)
-trap 'rm -rf "$work"' EXIT
+pids=()
+cleanup() {
+    for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done
+    rm -rf "$work"
+}
+trap cleanup EXIT
 
 : >"$work/rounds"
 for ((i = 1; i <= rounds; i++)); do
+    rm -f "$work"/*.db "$work"/*.db-*
     for tag in old new; do
         "${!tag}" fleet import "$route/fleet.json" --db "$work/$tag.db" >/dev/null
     done
-    for tag in old new; do
+    # The two start in turn, first one then the other, so that neither always has the head start.
+    order=(old new)
+    ((i % 2 == 0)) && order=(new old)
+    pids=()
+    for tag in "${order[@]}"; do
         /usr/bin/time -f "%e %U %S %M" -o "$work/$tag.time" "${!tag}" import "$route/walkdown" --db "$work/$tag.db" >/dev/null &
+        pids+=($!)
     done
-    wait
+    for p in "${pids[@]}"; do
+        wait "$p" || { echo "ab-import: an import failed in round $i (see above)" >&2; exit 1; }
+    done
+    pids=()
     echo "$(tail -n 1 "$work/old.time") $(tail -n 1 "$work/new.time")" >>"$work/rounds"
-    rm -f "$work"/*.db "$work"/*.db-journal
 done
 python3 - "$work/rounds" <<'PY'
 import statistics, sys
