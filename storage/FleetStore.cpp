@@ -361,10 +361,17 @@ std::vector<RoundRow> FleetStore::rounds() {
 }
 
 void FleetStore::storeSourceFile(const std::string& hash, std::span<const std::byte> bytes) {
-    // Bound in place: the statement goes before `bytes` can (a raw file is up to megabytes, copied
-    // once more for nothing otherwise).
-    auto s = m_db->prepare("INSERT OR IGNORE INTO source_files(hash, size, bytes) VALUES (?1, ?2, ?3)");
-    s.bind(1, hash).bind(2, static_cast<std::int64_t>(bytes.size())).bindBlobInPlace(3, bytes).run();
+    // Bound in place (a raw file is up to megabytes, copied once more for nothing otherwise), and
+    // unbound again before `bytes` can go: the statement is kept for the next file.
+    auto& s = m_db->cached("INSERT OR IGNORE INTO source_files(hash, size, bytes) VALUES (?1, ?2, ?3)");
+    s.bind(1, hash).bind(2, static_cast<std::int64_t>(bytes.size())).bindBlobInPlace(3, bytes);
+    try {
+        s.run();
+    } catch (...) {
+        s.reset();
+        throw;
+    }
+    s.reset();
 }
 
 std::vector<std::byte> FleetStore::sourceFile(const std::string& hash) {
@@ -377,7 +384,8 @@ std::vector<std::byte> FleetStore::sourceFile(const std::string& hash) {
 std::int64_t FleetStore::insertRecording(const RecordingRow& r) {
     const auto mid = motorId(r.motorTag);
     const auto pid = pointId(mid, r.pointName);
-    auto s = m_db->prepare(R"SQL(INSERT INTO recordings(round_id, point_id, recorded_at, sample_rate_hz, sample_count, file_name, file_hash,
+    // Kept: an import inserts a row per file (preparing it anew was a hundredth of the import).
+    auto& s = m_db->cached(R"SQL(INSERT INTO recordings(round_id, point_id, recorded_at, sample_rate_hz, sample_count, file_name, file_hash,
         file_format, channel_index, unit, sensitivity, quality, speed_rpm, load_percent)
         VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14))SQL");
     s.bind(1, r.roundId).bind(2, *pid).bind(3, r.recordedAt).bind(4, r.sampleRateHz).bind(5, r.sampleCount).bind(6, r.fileName);
@@ -460,7 +468,7 @@ std::optional<SpectrumRow> FleetStore::spectrum(std::int64_t recordingId, const 
 }
 
 void FleetStore::insertRoundMotor(const RoundMotorRow& r) {
-    auto s = m_db->prepare(R"SQL(INSERT INTO round_motors(round_id, motor_id, line_hz, line_method, speed_rpm, speed_method, speed_confidence,
+    auto& s = m_db->cached(R"SQL(INSERT INTO round_motors(round_id, motor_id, line_hz, line_method, speed_rpm, speed_method, speed_confidence,
         slip, load_percent, analysis_version, notes) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11))SQL");
     s.bind(1, r.roundId).bind(2, motorId(r.motorTag)).bind(3, r.lineHz).bind(4, r.lineMethod).bind(5, r.speedRpm).bind(6, r.speedMethod);
     s.bind(7, r.speedConfidence).bind(8, r.slip).bind(9, r.loadPercent).bind(10, r.analysisVersion).bind(11, r.notes).run();
@@ -507,7 +515,7 @@ std::vector<IndicatorRow> FleetStore::indicators(std::int64_t roundId, const std
 }
 
 void FleetStore::insertFinding(std::int64_t roundId, const std::string& motorTag, const Finding& f) {
-    auto s = m_db->prepare(R"SQL(INSERT INTO findings(round_id, motor_id, fault, severity, withheld, withheld_reason, origin, confidence,
+    auto& s = m_db->cached(R"SQL(INSERT INTO findings(round_id, motor_id, fault, severity, withheld, withheld_reason, origin, confidence,
         explanation, action, rule, evidence) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12))SQL");
     s.bind(1, roundId).bind(2, motorId(motorTag)).bind(3, f.fault).bind(4, f.severity).bind(5, f.withheld ? 1 : 0).bind(6, f.withheldReason);
     s.bind(7, diagnosis::originName(f.origin)).bind(8, f.confidence).bind(9, f.explanation).bind(10, f.action).bind(11, f.rule);
