@@ -23,13 +23,12 @@ constexpr double kSqrt2 = 1.4142135623730951;
 
 std::string requestError(const std::string& what) { return "spectrum: " + what; }
 
-// A window prepared for averaging: its samples, sums and the leading lines of its own DFT.
+// A window prepared for averaging: its samples and sums (cachedWindow) and the leading lines of
+// its own DFT.
 // Removing a segment's mean m after the transform, X[k] -= m W[k], is exact (the DFT is linear)
 // and saves a pass over the data: W[k] of a cosine-sum window vanishes beyond a few lines, so
 // only the lines where |W[k]| exceeds 1e-13 S1 are kept.
-struct PreparedWindow {
-    std::shared_ptr<const std::vector<double>> samples;
-    double s1 = 0, s2 = 0;
+struct PreparedWindow : SummedWindow {
     std::vector<std::complex<double>> dftHead;
 };
 
@@ -42,11 +41,7 @@ std::shared_ptr<const PreparedWindow> preparedWindow(const WindowSpec& spec, std
         std::lock_guard lock(mutex);
         if (auto it = cache.find(key); it != cache.end()) return it->second;
     }
-    auto p = std::make_shared<PreparedWindow>();
-    const SummedWindow window = cachedWindow(spec, n);
-    p->samples = window.samples;
-    p->s1 = window.s1;
-    p->s2 = window.s2;
+    auto p = std::make_shared<PreparedWindow>(PreparedWindow{cachedWindow(spec, n), {}});
     const auto& w = *p->samples;
     RealFft<double> fft(n);
     std::copy(w.begin(), w.end(), fft.input().begin());
