@@ -1,6 +1,7 @@
 #include "core/dsp/Quality.h"
 
 #include "core/dsp/SampleExtent.h"
+#include "core/util/DoubleLanes.h"
 #include "core/util/Sums.h"
 #include "core/util/VectorClones.h"
 
@@ -23,16 +24,34 @@ bool isMotion(Quantity q) {
     return q == Quantity::Acceleration || q == Quantity::Velocity || q == Quantity::Displacement;
 }
 
-// Whether any sample of x[begin, end) (begin >= 1) equals the one before it, sits at the level or
-// is not finite: the rare samples the run counting below must look at. Vectorises.
+// The first of the chunks of kRunChunk samples from `begin` (begin >= 1) up to `end` that holds a
+// sample equal to the one before it, at the level or not finite: the rare samples the run
+// counting below must look at; `end` when none does (a last chunk shorter than kRunChunk is
+// returned as it is, unexamined). Vectors of lanes (DoubleLanes.h), one call per record rather
+// than per chunk.
+constexpr std::size_t kRunChunk = 64;
+using MaskLanes = long long __attribute__((vector_size(32)));
+constexpr long long kNoSign = 0x7fffffffffffffffLL;
+
 HUMWISE_VECTOR_CLONES
-bool anyRunCandidate(const double* x, std::size_t begin, std::size_t end, double target, double tol) {
-    int any = 0;
-    for (std::size_t i = begin; i < end; ++i) {
-        const double a = std::abs(x[i]);
-        any |= (x[i] == x[i - 1]) | (std::abs(a - target) <= tol) | !(a <= DBL_MAX);
+std::size_t firstRunCandidate(const double* x, std::size_t begin, std::size_t end, double target, double tol) {
+    std::size_t c = begin;
+    for (; c + kRunChunk <= end; c += kRunChunk) {
+        MaskLanes any[4] = {}; // four, so that the ORs do not wait on each other
+        for (std::size_t i = c; i < c + kRunChunk; i += 16)
+            for (std::size_t v = 0; v < 4; ++v) {
+                util::DoubleLanes y, before;
+                util::loadLanes(y, x + i + 4 * v);
+                util::loadLanes(before, x + i + 4 * v - 1);
+                // |y| by clearing the sign bits (a NaN stays a NaN)
+                const auto a = reinterpret_cast<util::DoubleLanes>(reinterpret_cast<MaskLanes>(y) & kNoSign);
+                const util::DoubleLanes off = a - target;
+                any[v] |= (y == before) | ((off <= tol) & (off >= -tol)) | (a > DBL_MAX) | (a != a);
+            }
+        const MaskLanes all = (any[0] | any[1]) | (any[2] | any[3]);
+        if ((all[0] | all[1] | all[2] | all[3]) != 0) return c;
     }
-    return any != 0;
+    return c;
 }
 
 // In one pass: the longest run of identical consecutive finite samples, and the runs of
@@ -64,15 +83,16 @@ Runs runsOf(std::span<const double> x, double level, std::size_t minRun) {
     if (!x.empty()) look(0);
     // Chunks with no candidate sample only end the runs in progress: no sample in them extends
     // a constant run or sits at the level.
-    constexpr std::size_t kChunk = 64;
-    for (std::size_t begin = 1; begin < x.size(); begin += kChunk) {
-        const std::size_t end = std::min(x.size(), begin + kChunk);
-        if (anyRunCandidate(x.data(), begin, end, target, tol)) {
-            for (std::size_t i = begin; i < end; ++i) look(i);
-        } else {
+    for (std::size_t begin = 1; begin < x.size();) {
+        const std::size_t found = firstRunCandidate(x.data(), begin, x.size(), target, tol);
+        if (found > begin) {
             constantRun = 1;
             endLevelRun();
         }
+        if (found == x.size()) break;
+        const std::size_t end = std::min(x.size(), found + kRunChunk);
+        for (std::size_t i = found; i < end; ++i) look(i);
+        begin = end;
     }
     if (levelRun >= minRun) ++r.atLevel;
     return r;

@@ -1,5 +1,6 @@
 #include "core/dsp/SampleExtent.h"
 
+#include "core/util/DoubleLanes.h"
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
@@ -8,60 +9,71 @@
 namespace humwise::dsp {
 namespace {
 
-// The four-lane minimum, maximum and sum in one pass (vectorises; the lanes are plain locals so
-// that they stay in registers). A pass for the range and another for the sum read every record
-// twice; this pass and its three callers per channel were a twentieth of an import.
+// The minimum, maximum and sum in one pass, in vectors of lanes (DoubleLanes.h: four chains of
+// dependent minima, maxima and additions in flight). A pass for the range and another for the
+// sum read every record twice; this pass and its three callers per channel were a twentieth of an
+// import.
 struct LaneExtent {
     double lo, hi, sum;
 };
 
+using util::DoubleLanes;
+using util::kReductionVectors;
+using util::kReductionWidth;
+
 HUMWISE_VECTOR_CLONES
 LaneExtent laneExtent(std::span<const double> x) {
-    double lo0 = INFINITY, lo1 = INFINITY, lo2 = INFINITY, lo3 = INFINITY;
-    double hi0 = -INFINITY, hi1 = -INFINITY, hi2 = -INFINITY, hi3 = -INFINITY;
-    double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-    std::size_t i = 0;
-    for (; i + 4 <= x.size(); i += 4) {
-        lo0 = x[i] < lo0 ? x[i] : lo0;
-        lo1 = x[i + 1] < lo1 ? x[i + 1] : lo1;
-        lo2 = x[i + 2] < lo2 ? x[i + 2] : lo2;
-        lo3 = x[i + 3] < lo3 ? x[i + 3] : lo3;
-        hi0 = x[i] > hi0 ? x[i] : hi0;
-        hi1 = x[i + 1] > hi1 ? x[i + 1] : hi1;
-        hi2 = x[i + 2] > hi2 ? x[i + 2] : hi2;
-        hi3 = x[i + 3] > hi3 ? x[i + 3] : hi3;
-        s0 += x[i];
-        s1 += x[i + 1];
-        s2 += x[i + 2];
-        s3 += x[i + 3];
+    DoubleLanes lo[kReductionVectors], hi[kReductionVectors], s[kReductionVectors] = {};
+    for (std::size_t v = 0; v < kReductionVectors; ++v) {
+        lo[v] = DoubleLanes{} + INFINITY;
+        hi[v] = DoubleLanes{} - INFINITY;
     }
-    for (; i < x.size(); ++i) {
-        lo0 = x[i] < lo0 ? x[i] : lo0;
-        hi0 = x[i] > hi0 ? x[i] : hi0;
-        s0 += x[i];
-    }
-    return {std::min({lo0, lo1, lo2, lo3}), std::max({hi0, hi1, hi2, hi3}), (s0 + s1) + (s2 + s3)};
-}
-
-// Every sample finite: four interleaved lanes, so that the additions do not wait on each other.
-HUMWISE_VECTOR_CLONES
-CentralPowerSums laneCentralPowerSums(std::span<const double> x, double about) {
-    double a2[4] = {0, 0, 0, 0}, a3[4] = {0, 0, 0, 0}, a4[4] = {0, 0, 0, 0};
     std::size_t i = 0;
-    for (; i + 4 <= x.size(); i += 4)
-        for (std::size_t j = 0; j < 4; ++j) {
-            const double d = x[i + j] - about, d2 = d * d;
-            a2[j] += d2;
-            a3[j] += d2 * d;
-            a4[j] += d2 * d2;
+    for (; i + kReductionWidth <= x.size(); i += kReductionWidth)
+        for (std::size_t v = 0; v < kReductionVectors; ++v) {
+            DoubleLanes y;
+            util::loadLanes(y, x.data() + i + 4 * v);
+            lo[v] = y < lo[v] ? y : lo[v]; // a NaN compares false: it leaves both alone
+            hi[v] = y > hi[v] ? y : hi[v];
+            s[v] += y;
+        }
+    LaneExtent out{INFINITY, -INFINITY, util::sumOfLanes(s)};
+    for (std::size_t v = 0; v < kReductionVectors; ++v)
+        for (int j = 0; j < 4; ++j) {
+            out.lo = lo[v][j] < out.lo ? lo[v][j] : out.lo;
+            out.hi = hi[v][j] > out.hi ? hi[v][j] : out.hi;
         }
     for (; i < x.size(); ++i) {
-        const double d = x[i] - about, d2 = d * d;
-        a2[0] += d2;
-        a3[0] += d2 * d;
-        a4[0] += d2 * d2;
+        out.lo = x[i] < out.lo ? x[i] : out.lo;
+        out.hi = x[i] > out.hi ? x[i] : out.hi;
+        out.sum += x[i];
     }
-    return {(a2[0] + a2[1]) + (a2[2] + a2[3]), (a3[0] + a3[1]) + (a3[2] + a3[3]), (a4[0] + a4[1]) + (a4[2] + a4[3])};
+    return out;
+}
+
+// Every sample finite: vectors of lanes again, so that the additions do not wait on each other.
+HUMWISE_VECTOR_CLONES
+CentralPowerSums laneCentralPowerSums(std::span<const double> x, double about) {
+    DoubleLanes a2[kReductionVectors] = {}, a3[kReductionVectors] = {}, a4[kReductionVectors] = {};
+    std::size_t i = 0;
+    for (; i + kReductionWidth <= x.size(); i += kReductionWidth)
+        for (std::size_t v = 0; v < kReductionVectors; ++v) {
+            DoubleLanes d;
+            util::loadLanes(d, x.data() + i + 4 * v);
+            d -= about;
+            const DoubleLanes d2 = d * d;
+            a2[v] += d2;
+            a3[v] += d2 * d;
+            a4[v] += d2 * d2;
+        }
+    CentralPowerSums out{util::sumOfLanes(a2), util::sumOfLanes(a3), util::sumOfLanes(a4)};
+    for (; i < x.size(); ++i) {
+        const double d = x[i] - about, d2 = d * d;
+        out.m2 += d2;
+        out.m3 += d2 * d;
+        out.m4 += d2 * d2;
+    }
+    return out;
 }
 
 } // namespace

@@ -1,11 +1,11 @@
 #include "core/power/Phasors.h"
 
+#include "core/util/DoubleLanes.h"
 #include "core/util/Sums.h"
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
 #include <cmath>
-#include <cstring>
 #include <numbers>
 #include <stdexcept>
 #include <string>
@@ -51,16 +51,14 @@ Complex dirichletSum(double alpha, std::size_t count) {
 //   each lane reading its own block.
 // The first keeps 12 vectors of state (15 of the 16 AVX registers with its two lambdas and the
 // sample), the second 6.
-using Lanes = double __attribute__((vector_size(32)));
+using Lanes = util::DoubleLanes;
+using util::loadLanes;
+using util::storeLanes;
 constexpr std::size_t kToneLanes = 8;
 constexpr std::size_t kToneBlocks = 3;
 constexpr std::size_t kLaneBlocks = 12;
 constexpr std::size_t kFewTones = 4; // below this, blocks across the lanes
 
-// By reference: a 32-byte vector passed or returned by value would change the calling
-// convention between the clones (GCC's -Wpsabi).
-void loadLanes(Lanes& v, const double* p) { std::memcpy(&v, p, sizeof v); }
-void storeLanes(double* p, const Lanes& v) { std::memcpy(p, &v, sizeof v); }
 
 // Blocks b = 0 .. Blocks-1 of `len` samples at x + b len, tones in groups of 8 (lambda, s and u
 // padded to `tones`, a multiple of 8; state of block b, tone t at [b tones + t]; from zero).

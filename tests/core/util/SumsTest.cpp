@@ -1,6 +1,9 @@
 // Sums with partial accumulators (core/util/Sums.h): exact on values whose sums are exact in
-// double, every length around the four-way split (the tail must not be lost), empty input.
+// double, every length around the split into vectors of lanes (the tail must not be lost),
+// empty input, and a non-finite value in any lane.
 #include "core/util/Sums.h"
+
+#include "core/util/DoubleLanes.h"
 
 #include <gtest/gtest.h>
 
@@ -11,8 +14,8 @@
 namespace humwise::util {
 namespace {
 
-TEST(Sums, EveryLengthAroundTheFourWaySplit) {
-    for (std::size_t n = 0; n <= 11; ++n) {
+TEST(Sums, EveryLengthAroundTheSplitIntoLanes) {
+    for (std::size_t n = 0; n <= 2 * kReductionWidth + 5; ++n) {
         std::vector<double> x;
         double naive = 0, naiveSquares = 0;
         for (std::size_t i = 0; i < n; ++i) {
@@ -27,10 +30,13 @@ TEST(Sums, EveryLengthAroundTheFourWaySplit) {
     }
 }
 
-TEST(Sums, NonFiniteValuesShowInTheSum) {
-    std::vector<double> x(9, 1.0);
-    x[6] = std::numeric_limits<double>::quiet_NaN();
-    EXPECT_TRUE(std::isnan(sumOf(x)));
+TEST(Sums, NonFiniteValuesShowInTheSumFromAnyLane) {
+    for (std::size_t at = 0; at < 2 * kReductionWidth + 3; ++at) {
+        std::vector<double> x(2 * kReductionWidth + 3, 1.0);
+        x[at] = std::numeric_limits<double>::quiet_NaN();
+        EXPECT_TRUE(std::isnan(sumOf(x))) << at;
+        EXPECT_TRUE(std::isnan(deviationSums(x, 0.5).squares)) << at;
+    }
 }
 
 } // namespace
