@@ -74,8 +74,7 @@ std::optional<LineFrequencyEstimate> estimateSupplyFrequency(std::span<const dou
     // and a quarter of the signal's power; otherwise there is no supply line to speak of.
     const auto p = strongestIn(zs.value(), centre - span / 2, centre + span / 2, 10.0);
     if (!p) return std::nullopt;
-    const double n = static_cast<double>(current.size());
-    const double meanSquare = util::deviationSums(current, util::sumOf(current) / n).squares / n;
+    const double meanSquare = util::meanAndDeviations(current).about.squares / static_cast<double>(current.size());
     if (p->amplitude * p->amplitude < 0.25 * meanSquare) return std::nullopt;
     return LineFrequencyEstimate{p->frequencyHz, p->amplitude, confidenceOf(p->prominence)};
 }

@@ -201,17 +201,18 @@ void checkArguments(std::span<const double> x, double fs, std::span<const double
         throw std::invalid_argument("fitTones: record shorter than one period of " + std::to_string(lowest) + " Hz");
 }
 
-// The mean of x; throws when a sample is not finite. The sum is finite exactly when every sample
-// is (or the samples are so large that it overflows), so the samples are looked at one by one
-// only then, for the right message.
-double checkedMean(std::span<const double> x) {
-    const double sum = util::sumOf(x);
-    if (!std::isfinite(sum)) {
+// The mean of x and the deviations' sums (util::meanAndDeviations: one pass); throws when a
+// sample is not finite. The sums are finite exactly when every sample is (or the samples are so
+// large that they overflow), so the samples are looked at one by one only then, for the right
+// message.
+util::MeanAndDeviations checkedMeanAndDeviations(std::span<const double> x) {
+    const auto m = util::meanAndDeviations(x);
+    if (!std::isfinite(m.about.squares) || !std::isfinite(m.mean)) {
         for (double v : x)
             if (!std::isfinite(v)) throw std::invalid_argument("fitTones: non-finite sample");
         throw std::invalid_argument("fitTones: samples too large to sum (the sum overflows)");
     }
-    return sum / static_cast<double>(x.size());
+    return m;
 }
 
 } // namespace
@@ -227,8 +228,8 @@ ToneFit fitTones(std::span<const double> x, double sampleRateHz, std::span<const
     // The sample mean is taken out of x first (the constant column absorbs the rest): keeps the
     // residual energy below free of cancellation when the offset is large. x is not copied; the
     // sums subtract the mean as they go.
-    const double mean = checkedMean(x);
-    const auto [sumY, energy] = util::deviationSums(x, mean);
+    const auto [mean, deviations] = checkedMeanAndDeviations(x);
+    const auto [sumY, energy] = deviations;
 
     std::vector<double> w(k);
     for (std::size_t i = 0; i < k; ++i) w[i] = 2.0 * std::numbers::pi * frequenciesHz[i] / sampleRateHz;

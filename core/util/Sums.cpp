@@ -3,6 +3,9 @@
 #include "core/util/DoubleLanes.h"
 #include "core/util/VectorClones.h"
 
+#include <algorithm>
+#include <cmath>
+
 namespace humwise::util {
 
 HUMWISE_VECTOR_CLONES double sumOf(std::span<const double> x) {
@@ -37,6 +40,17 @@ HUMWISE_VECTOR_CLONES DeviationSums deviationSums(std::span<const double> x, dou
         tq += d * d;
     }
     return {sumOfLanes(s) + ts, sumOfLanes(q) + tq};
+}
+
+MeanAndDeviations meanAndDeviations(std::span<const double> x) {
+    if (x.empty()) return {};
+    const std::size_t head = std::min<std::size_t>(x.size(), 1024);
+    const double centre = sumOf(x.first(head)) / static_cast<double>(head);
+    const DeviationSums d = deviationSums(x, std::isfinite(centre) ? centre : 0.0);
+    const double n = static_cast<double>(x.size());
+    const double shift = d.sum / n; // mean - centre
+    const double squares = d.squares - d.sum * shift;
+    return {centre + shift, {d.sum - shift * n, squares < 0 ? 0.0 : squares}}; // a NaN stays a NaN
 }
 
 } // namespace humwise::util

@@ -22,4 +22,17 @@ struct DeviationSums {
 // The sums of the deviations from `about` (usually the mean) and of their squares, in one pass.
 DeviationSums deviationSums(std::span<const double> x, double about);
 
+// The mean of x and the sums of the deviations from it, in one pass over x: the sums of d = x - c
+// and d^2 about a provisional centre c, the mean of the first samples, then
+// mean = c + sum d / N and sum (x - mean)^2 = sum d^2 - (sum d)^2 / N (the shifted-data formula,
+// T. F. Chan, G. H. Golub and R. J. LeVeque, "Algorithms for computing the sample variance:
+// analysis and recommendations", The American Statistician 37, 1983; citation from memory
+// (verify)). With c near the mean the subtraction loses almost nothing: the first 1024 samples of
+// a current span several cycles. Not finite when a sample is not (or the squares overflow).
+struct MeanAndDeviations {
+    double mean = 0;
+    DeviationSums about; // about the mean: sum (zero but for rounding) and squares
+};
+MeanAndDeviations meanAndDeviations(std::span<const double> x);
+
 } // namespace humwise::util

@@ -39,5 +39,28 @@ TEST(Sums, NonFiniteValuesShowInTheSumFromAnyLane) {
     }
 }
 
+// The one-pass mean and spread against a two-pass reference in long double: a large offset under a
+// small tone, and a spike among the first samples (the provisional centre then sits far from the
+// mean), lose no more than a few digits. A non-finite sample shows.
+TEST(Sums, MeanAndDeviationsInOnePass) {
+    for (double spike : {0.0, 1e4}) {
+        std::vector<double> x(200'000);
+        for (std::size_t i = 0; i < x.size(); ++i) x[i] = 1e6 + std::sin(0.0314 * static_cast<double>(i));
+        x[3] += spike;
+        long double mean = 0, squares = 0;
+        for (double v : x) mean += v;
+        mean /= static_cast<long double>(x.size());
+        for (double v : x) squares += (v - mean) * (v - mean);
+        const MeanAndDeviations m = meanAndDeviations(x);
+        EXPECT_NEAR(m.mean, static_cast<double>(mean), 1e-9) << spike;
+        EXPECT_NEAR(m.about.squares, static_cast<double>(squares), 1e-8 * static_cast<double>(squares)) << spike;
+        EXPECT_NEAR(m.about.sum, 0.0, 1e-6) << spike;
+    }
+    std::vector<double> bad(3000, 1.0);
+    bad[2500] = std::numeric_limits<double>::infinity();
+    EXPECT_FALSE(std::isfinite(meanAndDeviations(bad).about.squares));
+    EXPECT_EQ(meanAndDeviations({}).mean, 0.0);
+}
+
 } // namespace
 } // namespace humwise::util
