@@ -24,17 +24,26 @@ bool isMotion(Quantity q) {
     return q == Quantity::Acceleration || q == Quantity::Velocity || q == Quantity::Displacement;
 }
 
-// The first of the chunks of kRunChunk samples from `begin` (begin >= 1) up to `end` that holds a
-// sample equal to the one before it, at the level or not finite: the rare samples the run
-// counting below must look at; `end` when none does (a last chunk shorter than kRunChunk is
-// returned as it is, unexamined). Vectors of lanes (DoubleLanes.h), one call per record rather
-// than per chunk.
+// The record is read once, piece by piece: each piece's extent, its constant runs and (for the
+// drift check) its residual about its own mean are taken while it is still in the processor's
+// cache. Three passes over a record that no longer fits there cost about three times one.
+// Pieces are the drift check's kDriftBlocks blocks of equal length and the few samples after
+// them when the drift is checked, else pieces of kPiece samples (128 KiB).
+constexpr std::size_t kDriftBlocks = 8;
+constexpr std::size_t kDriftMinSamples = 800;
+constexpr std::size_t kPiece = 16384;
+
+// Runs are searched in chunks of kRunChunk samples: the first chunk from `begin` (begin >= 1) up
+// to `end` holding a candidate sample is returned (`end` when none does; a last chunk shorter
+// than kRunChunk is returned as it is, unexamined). Vectors of lanes (DoubleLanes.h) with plain
+// masks, one call per piece rather than per chunk.
 constexpr std::size_t kRunChunk = 64;
 using MaskLanes = long long __attribute__((vector_size(32)));
 constexpr long long kNoSign = 0x7fffffffffffffffLL;
 
+// Candidates for a constant run: a sample equal to the one before it.
 HUMWISE_VECTOR_CLONES
-std::size_t firstRunCandidate(const double* x, std::size_t begin, std::size_t end, double target, double tol) {
+std::size_t firstRepeatChunk(const double* x, std::size_t begin, std::size_t end) {
     std::size_t c = begin;
     for (; c + kRunChunk <= end; c += kRunChunk) {
         MaskLanes any[4] = {}; // four, so that the ORs do not wait on each other
@@ -43,10 +52,7 @@ std::size_t firstRunCandidate(const double* x, std::size_t begin, std::size_t en
                 util::DoubleLanes y, before;
                 util::loadLanes(y, x + i + 4 * v);
                 util::loadLanes(before, x + i + 4 * v - 1);
-                // |y| by clearing the sign bits (a NaN stays a NaN)
-                const auto a = reinterpret_cast<util::DoubleLanes>(reinterpret_cast<MaskLanes>(y) & kNoSign);
-                const util::DoubleLanes off = a - target;
-                any[v] |= (y == before) | ((off <= tol) & (off >= -tol)) | (a > DBL_MAX) | (a != a);
+                any[v] |= y == before;
             }
         const MaskLanes all = (any[0] | any[1]) | (any[2] | any[3]);
         if ((all[0] | all[1] | all[2] | all[3]) != 0) return c;
@@ -54,85 +60,134 @@ std::size_t firstRunCandidate(const double* x, std::size_t begin, std::size_t en
     return c;
 }
 
-// In one pass: the longest run of identical consecutive finite samples, and the runs of
-// >= minRun consecutive samples whose |value| is at `level` (relative tolerance 1e-9).
-struct Runs {
-    std::size_t longestConstant = 0;
-    std::size_t atLevel = 0;
+// Candidates for a run at the level: |sample| within tol of target (never a NaN or infinity).
+HUMWISE_VECTOR_CLONES
+std::size_t firstLevelChunk(const double* x, std::size_t begin, std::size_t end, double target, double tol) {
+    std::size_t c = begin;
+    for (; c + kRunChunk <= end; c += kRunChunk) {
+        MaskLanes any[4] = {};
+        for (std::size_t i = c; i < c + kRunChunk; i += 16)
+            for (std::size_t v = 0; v < 4; ++v) {
+                util::DoubleLanes y;
+                util::loadLanes(y, x + i + 4 * v);
+                // |y| by clearing the sign bits (a NaN stays a NaN and compares false)
+                const auto off = reinterpret_cast<util::DoubleLanes>(reinterpret_cast<MaskLanes>(y) & kNoSign) - target;
+                any[v] |= (off <= tol) & (off >= -tol);
+            }
+        const MaskLanes all = (any[0] | any[1]) | (any[2] | any[3]);
+        if ((all[0] | all[1] | all[2] | all[3]) != 0) return c;
+    }
+    return c;
+}
+
+// The longest run of identical consecutive finite samples, read piece by piece in order.
+class ConstantRuns {
+public:
+    explicit ConstantRuns(std::span<const double> x) : m_x(x), m_longest(x.empty() ? 0 : 1) {}
+
+    // Samples [begin, end) of x, after every sample before begin.
+    void take(std::size_t begin, std::size_t end) {
+        for (std::size_t i = std::max<std::size_t>(begin, 1); i < end;) {
+            const std::size_t found = firstRepeatChunk(m_x.data(), i, end);
+            if (found > i) m_run = 1; // the chunks skipped hold no repeat: the run ends
+            const std::size_t stop = std::min(end, found + kRunChunk);
+            for (std::size_t k = found; k < stop; ++k) {
+                const double v = m_x[k];
+                m_run = (v == m_x[k - 1] && std::isfinite(v)) ? m_run + 1 : 1;
+                m_longest = std::max(m_longest, m_run);
+            }
+            i = stop;
+        }
+    }
+    std::size_t longest() const { return m_longest; }
+
+private:
+    std::span<const double> m_x;
+    std::size_t m_longest;
+    std::size_t m_run = 1;
 };
 
-Runs runsOf(std::span<const double> x, double level, std::size_t minRun) {
-    const double target = std::abs(level), tol = target * 1e-9;
-    Runs r;
-    r.longestConstant = x.empty() ? 0 : 1;
-    std::size_t constantRun = 1, levelRun = 0;
-    const auto endLevelRun = [&] {
-        if (levelRun >= minRun) ++r.atLevel;
-        levelRun = 0;
-    };
-    const auto look = [&](std::size_t i) {
-        const double v = x[i];
-        const bool finite = std::isfinite(v);
-        if (i > 0) {
-            constantRun = (v == x[i - 1] && finite) ? constantRun + 1 : 1;
-            r.longestConstant = std::max(r.longestConstant, constantRun);
-        }
-        if (finite && std::abs(std::abs(v) - target) <= tol) ++levelRun;
-        else endLevelRun();
-    };
-    if (!x.empty()) look(0);
-    // Chunks with no candidate sample only end the runs in progress: no sample in them extends
-    // a constant run or sits at the level.
-    for (std::size_t begin = 1; begin < x.size();) {
-        const std::size_t found = firstRunCandidate(x.data(), begin, x.size(), target, tol);
-        if (found > begin) {
-            constantRun = 1;
-            endLevelRun();
-        }
-        if (found == x.size()) break;
-        const std::size_t end = std::min(x.size(), found + kRunChunk);
-        for (std::size_t i = found; i < end; ++i) look(i);
-        begin = end;
+struct Piece {
+    std::size_t begin = 0, end = 0;
+    SampleExtent extent;
+    double residual = 0; // drift blocks: sum of squared deviations from the block's own mean
+    bool driftBlock = false;
+    std::span<const double> of(std::span<const double> x) const { return x.subspan(begin, end - begin); }
+};
+
+std::vector<Piece> piecesOf(std::size_t n, bool checksDrift) {
+    std::vector<Piece> pieces;
+    if (checksDrift) {
+        const std::size_t len = n / kDriftBlocks;
+        for (std::size_t b = 0; b < kDriftBlocks; ++b) pieces.push_back({b * len, (b + 1) * len, {}, 0, true});
+        if (kDriftBlocks * len < n) pieces.push_back({kDriftBlocks * len, n, {}, 0, false});
+    } else {
+        for (std::size_t at = 0; at < n; at += kPiece) pieces.push_back({at, std::min(n, at + kPiece), {}, 0, false});
     }
-    if (levelRun >= minRun) ++r.atLevel;
-    return r;
+    return pieces;
 }
 
-// The drift check's blocks: the record in kDriftBlocks blocks of equal length (the last few
-// samples, fewer than kDriftBlocks, belong to none).
-constexpr std::size_t kDriftBlocks = 8;
-constexpr std::size_t kDriftMinSamples = 800;
-
-std::span<const double> driftBlock(std::span<const double> x, std::size_t b) {
-    const std::size_t len = x.size() / kDriftBlocks;
-    return x.subspan(b * len, len);
-}
-
-struct Extents {
+struct Scan {
     SampleExtent whole;
-    std::array<SampleExtent, kDriftBlocks> blocks{};
-    bool hasBlocks = false;
+    std::vector<Piece> pieces;
+    std::size_t longestConstant = 0;
 };
 
-// The record's extent and, when the drift check will want them, its blocks' - the record's then
-// combined from the blocks' and the tail's, so that the samples are read once for both.
-Extents extentsOf(std::span<const double> x, bool wantBlocks) {
-    Extents out;
-    if (!wantBlocks) {
-        out.whole = sampleExtent(x);
-        return out;
+// The one pass: every piece's extent and constant runs, and the drift blocks' residuals.
+Scan scan(std::span<const double> x, bool checksDrift) {
+    Scan out;
+    out.pieces = piecesOf(x.size(), checksDrift);
+    ConstantRuns constant(x);
+    for (Piece& p : out.pieces) {
+        const auto samples = p.of(x);
+        p.extent = sampleExtent(samples);
+        constant.take(p.begin, p.end);
+        const std::size_t finite = samples.size() - p.extent.nonFinite;
+        if (p.driftBlock && finite > 0) {
+            const double mean = p.extent.sum / static_cast<double>(finite);
+            // Only the squares are needed: the lanes of deviationSums when the block is all finite
+            // (a third of the work of all three powers), the careful skipping loop otherwise.
+            p.residual = p.extent.nonFinite == 0 ? util::deviationSums(samples, mean).squares : centralPowerSums(samples, mean, false).m2;
+        }
+        out.whole.lo = std::min(out.whole.lo, p.extent.lo);
+        out.whole.hi = std::max(out.whole.hi, p.extent.hi);
+        out.whole.sum += p.extent.sum;
+        out.whole.nonFinite += p.extent.nonFinite;
     }
-    out.hasBlocks = true;
-    const std::size_t covered = x.size() / kDriftBlocks * kDriftBlocks;
-    out.whole = sampleExtent(x.subspan(covered));
-    for (std::size_t b = 0; b < kDriftBlocks; ++b) {
-        const SampleExtent be = out.blocks[b] = sampleExtent(driftBlock(x, b));
-        out.whole.lo = std::min(out.whole.lo, be.lo);
-        out.whole.hi = std::max(out.whole.hi, be.hi);
-        out.whole.sum += be.sum;
-        out.whole.nonFinite += be.nonFinite;
-    }
+    out.longestConstant = constant.longest();
     return out;
+}
+
+// Runs of >= minRun consecutive samples whose |value| is at `level` (relative tolerance 1e-9).
+// Only the pieces whose extent reaches the level can hold such a sample: usually the one or two
+// that hold the record's extreme are read again, and none when a known full scale is not reached.
+std::size_t runsAtLevel(std::span<const double> x, const std::vector<Piece>& pieces, double level, std::size_t minRun) {
+    const double target = std::abs(level), tol = target * 1e-9;
+    if (!std::isfinite(target)) return 0; // no finite sample sits at an infinite level
+    std::size_t runs = 0, run = 0;
+    const auto endRun = [&] {
+        if (run >= minRun) ++runs;
+        run = 0;
+    };
+    for (const Piece& p : pieces) {
+        if (!(std::max(std::abs(p.extent.lo), std::abs(p.extent.hi)) >= target - tol)) { // none there (or no finite sample)
+            endRun();
+            continue;
+        }
+        for (std::size_t i = p.begin; i < p.end;) {
+            const std::size_t found = firstLevelChunk(x.data(), i, p.end, target, tol);
+            if (found > i) endRun(); // the chunks skipped hold no sample at the level
+            const std::size_t stop = std::min(p.end, found + kRunChunk);
+            for (std::size_t k = found; k < stop; ++k) {
+                const double v = x[k];
+                if (std::isfinite(v) && std::abs(std::abs(v) - target) <= tol) ++run;
+                else endRun();
+            }
+            i = stop;
+        }
+    }
+    endRun();
+    return runs;
 }
 
 } // namespace
@@ -151,8 +206,8 @@ std::string_view qualityFlagName(QualityFlag flag) {
 std::vector<QualityIssue> assessQuality(std::span<const double> x, const QualityRequest& r) {
     std::vector<QualityIssue> issues;
     const bool checksDrift = isMotion(r.quantity) && x.size() >= kDriftMinSamples;
-    const Extents extents = extentsOf(x, checksDrift);
-    const SampleExtent& e = extents.whole;
+    const Scan pass = scan(x, checksDrift);
+    const SampleExtent& e = pass.whole;
     const double lo = e.lo, hi = e.hi;
     if (e.nonFinite > 0)
         issues.push_back({QualityFlag::NonFinite, format("%.0f of %.0f samples are NaN or infinite", double(e.nonFinite), double(x.size()))});
@@ -169,27 +224,23 @@ std::vector<QualityIssue> assessQuality(std::span<const double> x, const Quality
         return issues; // nothing else is meaningful on a constant signal
     }
     const double extreme = r.fullScale ? *r.fullScale : largest;
-    const Runs runs = runsOf(x, extreme, 3);
-    if (finite >= 100 && runs.longestConstant * 10 > finite)
-        issues.push_back({QualityFlag::FlatLine, format("%.0f identical consecutive samples (%.1f %% of the record)", double(runs.longestConstant), 100.0 * double(runs.longestConstant) / double(finite))});
-    if (runs.atLevel >= 3)
-        issues.push_back({QualityFlag::Clipped, format("%.0f runs of 3 or more samples sit at the limit %.6g", double(runs.atLevel), extreme)});
+    if (finite >= 100 && pass.longestConstant * 10 > finite)
+        issues.push_back({QualityFlag::FlatLine, format("%.0f identical consecutive samples (%.1f %% of the record)", double(pass.longestConstant), 100.0 * double(pass.longestConstant) / double(finite))});
+    const std::size_t atLevel = runsAtLevel(x, pass.pieces, extreme, 3);
+    if (atLevel >= 3)
+        issues.push_back({QualityFlag::Clipped, format("%.0f runs of 3 or more samples sit at the limit %.6g", double(atLevel), extreme)});
 
-    if (extents.hasBlocks && finite >= kDriftMinSamples) {
+    if (checksDrift && finite >= kDriftMinSamples) {
         const double mean = e.sum / static_cast<double>(finite);
         double bmin = INFINITY, bmax = -INFINITY, residual = 0;
         std::size_t residualCount = 0;
-        for (std::size_t b = 0; b < kDriftBlocks; ++b) {
-            const auto block = driftBlock(x, b);
-            const SampleExtent& be = extents.blocks[b];
-            const std::size_t bc = block.size() - be.nonFinite;
-            if (bc == 0) continue;
-            const double bm = be.sum / static_cast<double>(bc);
+        for (const Piece& block : pass.pieces) {
+            const std::size_t bc = block.end - block.begin - block.extent.nonFinite;
+            if (!block.driftBlock || bc == 0) continue;
+            const double bm = block.extent.sum / static_cast<double>(bc);
             bmin = std::min(bmin, bm);
             bmax = std::max(bmax, bm);
-            // Only the squares are needed: the lanes of deviationSums when the block is all finite
-            // (a third of the work of all three powers), the careful skipping loop otherwise.
-            residual += be.nonFinite == 0 ? util::deviationSums(block, bm).squares : centralPowerSums(block, bm, false).m2;
+            residual += block.residual;
             residualCount += bc;
         }
         const double residualRms = residualCount ? std::sqrt(residual / static_cast<double>(residualCount)) : 0.0;

@@ -9,6 +9,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <random>
 #include <string>
 
 namespace humwise::dsp {
@@ -111,6 +112,77 @@ TEST(Quality, TheTailAfterTheDriftBlocksCounts) {
     EXPECT_FALSE(has(assessQuality(y, {}), QualityFlag::Clipped));
     y.resize(y.size() - 5);
     EXPECT_TRUE(has(assessQuality(y, {}), QualityFlag::Clipped));
+}
+
+// The runs read plainly, sample by sample, as Quality.h states the rules: the checks read the
+// record once in pieces (8 drift blocks on motion channels, 16 384 samples otherwise) and skip
+// 64-sample chunks with nothing to look at. Runs and non-finite samples placed across every
+// piece edge must give the same counts.
+struct PlainRuns {
+    std::size_t longestConstant = 0, atLevel = 0;
+};
+
+PlainRuns plainRuns(const std::vector<double>& x, double level) {
+    PlainRuns r;
+    r.longestConstant = x.empty() ? 0 : 1;
+    std::size_t constant = 1, atLevel = 0;
+    for (std::size_t i = 0; i < x.size(); ++i) {
+        const bool finite = std::isfinite(x[i]);
+        if (i > 0) {
+            constant = finite && x[i] == x[i - 1] ? constant + 1 : 1;
+            r.longestConstant = std::max(r.longestConstant, constant);
+        }
+        if (finite && std::abs(std::abs(x[i]) - level) <= level * 1e-9) {
+            ++atLevel;
+        } else {
+            if (atLevel >= 3) ++r.atLevel;
+            atLevel = 0;
+        }
+    }
+    if (atLevel >= 3) ++r.atLevel;
+    return r;
+}
+
+TEST(Quality, RunsAcrossPieceEdgesMatchAPlainReading) {
+    std::mt19937 random(11);
+    for (const std::size_t n : {std::size_t{5000}, std::size_t{16384 * 2 + 7}, std::size_t{51203}, std::size_t{100000}}) {
+        for (const Quantity q : {Quantity::Acceleration, Quantity::Current}) {
+            auto x = test::gaussianNoise(0.3, n, static_cast<unsigned>(n));
+            const double limit = 4.0;
+            // Edges: of the drift blocks (n / 8), of the 16 384-sample pieces, of the 64-sample chunks.
+            std::vector<std::size_t> edges;
+            for (std::size_t b = 1; b < 8; ++b) edges.push_back(b * (n / 8));
+            for (std::size_t at = 16384; at < n; at += 16384) edges.push_back(at);
+            edges.push_back(65);
+            edges.push_back(n - 2);
+            std::size_t k = 0;
+            for (const std::size_t edge : edges) {
+                const std::size_t start = edge - std::min<std::size_t>(edge, random() % 4);
+                const std::size_t length = 2 + random() % 4; // some runs of 2: not counted
+                for (std::size_t i = start; i < std::min(n, start + length); ++i) x[i] = (k % 3 == 0) ? -limit : limit;
+                const std::size_t flat = std::min(n - 1, edge + 40);
+                for (std::size_t i = flat; i < std::min(n, flat + 30 + k); ++i) x[i] = 0.125; // constant runs over chunk edges
+                if (k % 4 == 1) x[std::min(n - 1, edge + 1)] = std::numeric_limits<double>::quiet_NaN();
+                ++k;
+            }
+            QualityRequest r;
+            r.quantity = q;
+            const auto plain = plainRuns(x, limit);
+            const auto issues = assessQuality(x, r);
+            const std::string clipped = detailOf(issues, QualityFlag::Clipped);
+            if (plain.atLevel >= 3)
+                EXPECT_EQ(clipped, std::to_string(plain.atLevel) + " runs of 3 or more samples sit at the limit 4") << n;
+            else
+                EXPECT_EQ(clipped, "") << n;
+            // A constant run long enough to flag, straddling the middle drift block edge.
+            auto y = x;
+            const std::size_t run = n / 9;
+            for (std::size_t i = n / 2 - run / 2; i < n / 2 - run / 2 + run; ++i) y[i] = -0.5;
+            const auto yPlain = plainRuns(y, limit);
+            const std::string flat = detailOf(assessQuality(y, r), QualityFlag::FlatLine);
+            EXPECT_EQ(flat.substr(0, flat.find(' ')), std::to_string(yPlain.longestConstant)) << n << " " << flat;
+        }
+    }
 }
 
 TEST(Quality, TooShort) {
