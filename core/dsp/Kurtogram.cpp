@@ -1,5 +1,7 @@
 #include "core/dsp/Kurtogram.h"
 
+#include "core/util/Sums.h"
+
 #include <algorithm>
 #include <cmath>
 #include <utility>
@@ -11,8 +13,10 @@ namespace {
 
 // Average power density of the record, unit^2 per Hz, from its one-sided lines.
 double averageDensity(const RecordSpectrum& spectrum) {
-    double sum = 0;
-    for (const auto& x : spectrum.bins()) sum += std::norm(x);
+    // sum |X_k|^2 is the sum of the squares of the lines' real and imaginary parts, which
+    // std::complex lays out as an array of doubles ([complex.numbers]); summed in lanes.
+    const auto bins = spectrum.bins();
+    const double sum = util::deviationSums({reinterpret_cast<const double*>(bins.data()), 2 * bins.size()}, 0.0).squares;
     const double n = static_cast<double>(spectrum.length());
     const double meanSquare = 2.0 * sum / (n * n); // Parseval, one-sided (DC and Nyquist counted twice: negligible)
     return meanSquare / (spectrum.sampleRateHz() / 2.0);

@@ -97,12 +97,30 @@ double lineAmplitude(const Spectrum& s, std::size_t k) {
 
 } // namespace
 
-double windowKernel(const WindowSpec& spec, std::size_t n, double d) {
-    if (spec.kind == WindowKind::Kaiser) return kaiserResponse(spec.kaiserBeta, n, d);
-    const auto a = cosineCoefficients(spec.kind);
-    const double nd = static_cast<double>(n);
-    return cosineSumResponse(a, nd, d) / cosineSumResponse(a, nd, 0.0);
-}
+namespace {
+
+// windowKernel with the cosine-sum window's response at 0 found once (the peak interpolation
+// below asks for the kernel a dozen times per peak).
+class Kernel {
+public:
+    Kernel(const WindowSpec& spec, std::size_t n)
+        : m_spec(spec), m_n(n), m_a(cosineCoefficients(spec.kind)),
+          m_atZero(spec.kind == WindowKind::Kaiser ? 1.0 : cosineSumResponse(m_a, static_cast<double>(n), 0.0)) {}
+    double operator()(double d) const {
+        if (m_spec.kind == WindowKind::Kaiser) return kaiserResponse(m_spec.kaiserBeta, m_n, d);
+        return cosineSumResponse(m_a, static_cast<double>(m_n), d) / m_atZero;
+    }
+
+private:
+    WindowSpec m_spec;
+    std::size_t m_n;
+    std::span<const double> m_a;
+    double m_atZero;
+};
+
+} // namespace
+
+double windowKernel(const WindowSpec& spec, std::size_t n, double d) { return Kernel(spec, n)(d); }
 
 namespace {
 
@@ -114,11 +132,11 @@ namespace {
 class RatioTable {
 public:
     static constexpr std::size_t kSteps = 512;
-    RatioTable(const WindowSpec& w, std::size_t n, double scale) : m_window(w), m_n(n), m_scale(scale), m_r(kSteps + 1) {
+    RatioTable(const WindowSpec& w, std::size_t n, double scale) : m_kernel(w, n), m_scale(scale), m_r(kSteps + 1) {
         for (std::size_t i = 0; i <= kSteps; ++i) m_r[i] = exact(offsetAt(i));
         m_monotonic = std::is_sorted(m_r.begin(), m_r.end());
     }
-    double kernel(double d) const { return windowKernel(m_window, m_n, d * m_scale); }
+    double kernel(double d) const { return m_kernel(d * m_scale); }
     double exact(double d) const { return kernel(1.0 - d) / kernel(d); }
     static double offsetAt(std::size_t i) { return 0.5 * static_cast<double>(i) / kSteps; }
     // The offset d whose ratio is r (r within [r(0), 1]).
@@ -153,8 +171,7 @@ private:
         for (int it = 0; it < 40; ++it) (exact(0.5 * (lo + hi)) < r ? lo : hi) = 0.5 * (lo + hi);
         return 0.5 * (lo + hi);
     }
-    WindowSpec m_window;
-    std::size_t m_n;
+    Kernel m_kernel;
     double m_scale;
     std::vector<double> m_r;
     bool m_monotonic = true;
