@@ -23,14 +23,19 @@ namespace humwise::dsp {
 RecordSpectrum::RecordSpectrum(std::span<const double> x, double fs) : m_n(x.size()), m_fs(fs) {
     if (x.size() < 4) throw std::invalid_argument("RecordSpectrum: the record needs at least 4 samples");
     if (!(fs > 0)) throw std::invalid_argument("RecordSpectrum: sample rate must be > 0");
-    const double mean = util::sumOf(x) / static_cast<double>(x.size());
     std::optional<RealFft<double>> own;
     RealFft<double>& fft = keptRealFft<double>(m_n, own);
-    auto in = fft.input();
-    for (std::size_t i = 0; i < m_n; ++i) in[i] = x[i] - mean;
+    // The mean is removed after the transform: a constant lies in line 0 alone (the DFT is
+    // linear; the transform of a constant c is N c at k = 0), so X[0] -= sum x is exact and saves
+    // a pass over the record.
+    const double sum = util::copyAndSum(x, fft.input().data());
     fft.execute();
     const auto out = fft.output();
-    m_bins.assign(out.begin(), out.end());
+    // resize and memcpy: assign() copies std::complex element by element (it is not trivially
+    // default-constructible, so the library does not take the memmove path).
+    m_bins.resize(out.size());
+    std::memcpy(m_bins.data(), out.data(), out.size_bytes());
+    m_bins[0] -= sum;
 }
 
 namespace {

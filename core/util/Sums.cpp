@@ -22,6 +22,24 @@ HUMWISE_VECTOR_CLONES double sumOf(std::span<const double> x) {
     return sumOfLanes(p) + tail;
 }
 
+HUMWISE_VECTOR_CLONES double copyAndSum(std::span<const double> x, double* out) {
+    DoubleLanes p[kReductionVectors] = {};
+    std::size_t i = 0;
+    for (; i + kReductionWidth <= x.size(); i += kReductionWidth)
+        for (std::size_t v = 0; v < kReductionVectors; ++v) {
+            DoubleLanes y;
+            loadLanes(y, x.data() + i + 4 * v);
+            p[v] += y;
+            storeLanes(out + i + 4 * v, y);
+        }
+    double tail = 0;
+    for (; i < x.size(); ++i) {
+        tail += x[i];
+        out[i] = x[i];
+    }
+    return sumOfLanes(p) + tail;
+}
+
 HUMWISE_VECTOR_CLONES DeviationSums deviationSums(std::span<const double> x, double about) {
     DoubleLanes s[kReductionVectors] = {}, q[kReductionVectors] = {};
     std::size_t i = 0;

@@ -14,6 +14,9 @@ namespace humwise::util {
 // sum_n x[n]
 double sumOf(std::span<const double> x);
 
+// Copies x to out (x.size() doubles, not overlapping x) and returns sum_n x[n]: one pass.
+double copyAndSum(std::span<const double> x, double* out);
+
 struct DeviationSums {
     double sum = 0;     // sum_n (x[n] - about)
     double squares = 0; // sum_n (x[n] - about)^2

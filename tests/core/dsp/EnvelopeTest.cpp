@@ -41,6 +41,31 @@ EnvelopeRequest bandRequest(bool squared) {
     return r;
 }
 
+// The record's transform has its mean removed (BandSignal.h), after the transform: line 0 is the
+// only one a constant touches. Checked against a direct DFT of the centred record, in long
+// double, with a large offset under the signal.
+TEST(RecordSpectrum, LinesAreThoseOfTheCentredRecord) {
+    const double fs = 1000;
+    auto x = test::sine(1.0, 37.0, fs, 1999);
+    test::add(x, test::gaussianNoise(0.1, x.size(), 3));
+    for (double& v : x) v += 250.0;
+    const RecordSpectrum record(x, fs);
+    long double mean = 0;
+    for (double v : x) mean += v;
+    mean /= static_cast<long double>(x.size());
+    const long double n = static_cast<long double>(x.size());
+    for (const std::size_t k : {std::size_t{0}, std::size_t{1}, std::size_t{74}, std::size_t{500}, std::size_t{999}}) {
+        long double re = 0, im = 0;
+        for (std::size_t i = 0; i < x.size(); ++i) {
+            const long double phase = -2.0L * std::numbers::pi_v<long double> * static_cast<long double>(k * i) / n;
+            re += (x[i] - mean) * std::cos(phase);
+            im += (x[i] - mean) * std::sin(phase);
+        }
+        EXPECT_NEAR(record.bins()[k].real(), static_cast<double>(re), 1e-9) << k;
+        EXPECT_NEAR(record.bins()[k].imag(), static_cast<double>(im), 1e-9) << k;
+    }
+}
+
 TEST(Envelope, AmplitudeModulationGivesTheKnownLines) {
     const auto x = amSignal();
     const auto sq = envelopeSpectrum(x, 20000, bandRequest(true));

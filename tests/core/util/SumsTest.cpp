@@ -24,6 +24,9 @@ TEST(Sums, EveryLengthAroundTheSplitIntoLanes) {
             naiveSquares += (x.back() - 1.0) * (x.back() - 1.0);
         }
         EXPECT_EQ(sumOf(x), naive) << n;
+        std::vector<double> copy(n, -1.0);
+        EXPECT_EQ(copyAndSum(x, copy.data()), naive) << n;
+        EXPECT_EQ(copy, x) << n;
         const DeviationSums d = deviationSums(x, 1.0);
         EXPECT_EQ(d.sum, naive - static_cast<double>(n)) << n;
         EXPECT_EQ(d.squares, naiveSquares) << n;
