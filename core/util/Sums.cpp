@@ -8,21 +8,11 @@
 
 namespace humwise::util {
 
-HUMWISE_VECTOR_CLONES double sumOf(std::span<const double> x) {
-    DoubleLanes p[kReductionVectors] = {};
-    std::size_t i = 0;
-    for (; i + kReductionWidth <= x.size(); i += kReductionWidth)
-        for (std::size_t v = 0; v < kReductionVectors; ++v) {
-            DoubleLanes y;
-            loadLanes(y, x.data() + i + 4 * v);
-            p[v] += y;
-        }
-    double tail = 0;
-    for (; i < x.size(); ++i) tail += x[i];
-    return sumOfLanes(p) + tail;
-}
+namespace {
 
-HUMWISE_VECTOR_CLONES double copyAndSum(std::span<const double> x, double* out) {
+// sum_n x[n], and x copied to out when Copy: one pass for both.
+template <bool Copy>
+HUMWISE_VECTOR_CLONES double sumPass(std::span<const double> x, double* out) {
     DoubleLanes p[kReductionVectors] = {};
     std::size_t i = 0;
     for (; i + kReductionWidth <= x.size(); i += kReductionWidth)
@@ -30,15 +20,21 @@ HUMWISE_VECTOR_CLONES double copyAndSum(std::span<const double> x, double* out) 
             DoubleLanes y;
             loadLanes(y, x.data() + i + 4 * v);
             p[v] += y;
-            storeLanes(out + i + 4 * v, y);
+            if constexpr (Copy) storeLanes(out + i + 4 * v, y);
         }
     double tail = 0;
     for (; i < x.size(); ++i) {
         tail += x[i];
-        out[i] = x[i];
+        if constexpr (Copy) out[i] = x[i];
     }
     return sumOfLanes(p) + tail;
 }
+
+} // namespace
+
+double sumOf(std::span<const double> x) { return sumPass<false>(x, nullptr); }
+
+double copyAndSum(std::span<const double> x, double* out) { return sumPass<true>(x, out); }
 
 HUMWISE_VECTOR_CLONES DeviationSums deviationSums(std::span<const double> x, double about) {
     DoubleLanes s[kReductionVectors] = {}, q[kReductionVectors] = {};
