@@ -33,15 +33,15 @@ constexpr std::size_t kDriftBlocks = 8;
 constexpr std::size_t kDriftMinSamples = 800;
 constexpr std::size_t kPiece = 16384;
 
-// Runs are searched in chunks of kRunChunk samples: the first chunk from `begin` (begin >= 1) up
-// to `end` holding a candidate sample is returned (`end` when none does; a last chunk shorter
-// than kRunChunk is returned as it is, unexamined). Vectors of lanes (DoubleLanes.h) with plain
+// Runs are searched in chunks of kRunChunk samples: the first chunk from `begin` up to `end`
+// holding a candidate sample is returned (`end` when none does; a last chunk shorter than
+// kRunChunk is returned as it is, unexamined). Vectors of lanes (DoubleLanes.h) with plain
 // masks, one call per piece rather than per chunk.
 constexpr std::size_t kRunChunk = 64;
 using MaskLanes = long long __attribute__((vector_size(32)));
 constexpr long long kNoSign = 0x7fffffffffffffffLL;
 
-// Candidates for a constant run: a sample equal to the one before it.
+// Candidates for a constant run: a sample equal to the one before it (begin >= 1).
 HUMWISE_VECTOR_CLONES
 std::size_t firstRepeatChunk(const double* x, std::size_t begin, std::size_t end) {
     std::size_t c = begin;

@@ -59,7 +59,6 @@ constexpr std::size_t kToneBlocks = 3;
 constexpr std::size_t kLaneBlocks = 12;
 constexpr std::size_t kFewTones = 4; // below this, blocks across the lanes
 
-
 // Blocks b = 0 .. Blocks-1 of `len` samples at x + b len, tones in groups of 8 (lambda, s and u
 // padded to `tones`, a multiple of 8; state of block b, tone t at [b tones + t]; from zero).
 template <std::size_t Blocks>
