@@ -87,7 +87,10 @@ void inOrder(std::size_t count, unsigned workers, std::size_t window, Work&& wor
             changed.wait(lock, [&] { return done.count(i) != 0; });
             auto node = done.extract(i);
             d = std::move(node.mapped());
-            collecting = i + 1;
+            if (d.error)
+                stop = true; // no item starts any more: the window stays where the failure is
+            else
+                collecting = i + 1;
         }
         changed.notify_all();
         if (d.error) std::rethrow_exception(d.error);
