@@ -6,8 +6,6 @@
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
-#include <array>
-#include <cfloat>
 #include <cmath>
 #include <cstdio>
 
@@ -41,43 +39,42 @@ constexpr std::size_t kRunChunk = 64;
 using MaskLanes = long long __attribute__((vector_size(32)));
 constexpr long long kNoSign = 0x7fffffffffffffffLL;
 
-// Candidates for a constant run: a sample equal to the one before it (begin >= 1).
-HUMWISE_VECTOR_CLONES
-std::size_t firstRepeatChunk(const double* x, std::size_t begin, std::size_t end) {
+// The chunk search itself; mark(p, mask) sets the mask's lanes for the candidates among the four
+// samples at p. Inlined into each clone of its callers, so their vectors stay in registers.
+template <class Mark>
+[[gnu::always_inline]] inline std::size_t firstChunkWith(const double* x, std::size_t begin, std::size_t end, Mark mark) {
     std::size_t c = begin;
     for (; c + kRunChunk <= end; c += kRunChunk) {
         MaskLanes any[4] = {}; // four, so that the ORs do not wait on each other
         for (std::size_t i = c; i < c + kRunChunk; i += 16)
-            for (std::size_t v = 0; v < 4; ++v) {
-                util::DoubleLanes y, before;
-                util::loadLanes(y, x + i + 4 * v);
-                util::loadLanes(before, x + i + 4 * v - 1);
-                any[v] |= y == before;
-            }
+            for (std::size_t v = 0; v < 4; ++v) mark(x + i + 4 * v, any[v]);
         const MaskLanes all = (any[0] | any[1]) | (any[2] | any[3]);
         if ((all[0] | all[1] | all[2] | all[3]) != 0) return c;
     }
     return c;
 }
 
+// Candidates for a constant run: a sample equal to the one before it (begin >= 1).
+HUMWISE_VECTOR_CLONES
+std::size_t firstRepeatChunk(const double* x, std::size_t begin, std::size_t end) {
+    return firstChunkWith(x, begin, end, [](const double* p, MaskLanes& any) __attribute__((always_inline)) {
+        util::DoubleLanes y, before;
+        util::loadLanes(y, p);
+        util::loadLanes(before, p - 1);
+        any |= y == before;
+    });
+}
+
 // Candidates for a run at the level: |sample| within tol of target (never a NaN or infinity).
 HUMWISE_VECTOR_CLONES
 std::size_t firstLevelChunk(const double* x, std::size_t begin, std::size_t end, double target, double tol) {
-    std::size_t c = begin;
-    for (; c + kRunChunk <= end; c += kRunChunk) {
-        MaskLanes any[4] = {};
-        for (std::size_t i = c; i < c + kRunChunk; i += 16)
-            for (std::size_t v = 0; v < 4; ++v) {
-                util::DoubleLanes y;
-                util::loadLanes(y, x + i + 4 * v);
-                // |y| by clearing the sign bits (a NaN stays a NaN and compares false)
-                const auto off = reinterpret_cast<util::DoubleLanes>(reinterpret_cast<MaskLanes>(y) & kNoSign) - target;
-                any[v] |= (off <= tol) & (off >= -tol);
-            }
-        const MaskLanes all = (any[0] | any[1]) | (any[2] | any[3]);
-        if ((all[0] | all[1] | all[2] | all[3]) != 0) return c;
-    }
-    return c;
+    return firstChunkWith(x, begin, end, [target, tol](const double* p, MaskLanes& any) __attribute__((always_inline)) {
+        util::DoubleLanes y;
+        util::loadLanes(y, p);
+        // |y| by clearing the sign bits (a NaN stays a NaN and compares false)
+        const auto off = reinterpret_cast<util::DoubleLanes>(reinterpret_cast<MaskLanes>(y) & kNoSign) - target;
+        any |= (off <= tol) & (off >= -tol);
+    });
 }
 
 // The longest run of identical consecutive finite samples, read piece by piece in order.
