@@ -89,6 +89,12 @@ void checkSize(std::size_t n, const char* who) {
                                     std::to_string(n));
 }
 
+// The size, checked before anything is planned or allocated (a transform's plan is made first).
+std::size_t checked(std::size_t n, const char* who) {
+    checkSize(n, who);
+    return n;
+}
+
 template <class T>
 T* allocate(std::size_t count) {
     using F = Fftw<std::conditional_t<std::is_same_v<T, std::complex<float>> || std::is_same_v<T, float>, float, double>>;
@@ -134,47 +140,54 @@ void* cachedPlan(std::size_t n, PlanKind kind) {
 
 } // namespace
 
-template <class Real>
-RealFft<Real>::RealFft(std::size_t n) : m_n(n) {
-    checkSize(n, "RealFft");
-    m_plan = cachedPlan<Real>(n, PlanKind::RealForward);
-    m_in = allocate<Real>(n);
+template <class Real, class In>
+detail::FftBuffers<Real, In>::FftBuffers(std::size_t count, std::size_t outCount, void* cached)
+    : n(count), in(allocate<In>(count)), plan(cached) {
     try {
-        m_out = allocate<std::complex<Real>>(n / 2 + 1);
+        out = allocate<std::complex<Real>>(outCount);
     } catch (...) {
-        release<Real>(m_in);
+        release<Real>(in);
         throw;
     }
 }
 
-template <class Real>
-RealFft<Real>::~RealFft() {
-    release<Real>(m_in);
-    release<Real>(m_out);
+template <class Real, class In>
+detail::FftBuffers<Real, In>::~FftBuffers() {
+    release<Real>(in);
+    release<Real>(out);
 }
 
-template <class Real>
-RealFft<Real>::RealFft(RealFft&& other) noexcept
-    : m_n(std::exchange(other.m_n, 0)), m_in(std::exchange(other.m_in, nullptr)),
-      m_out(std::exchange(other.m_out, nullptr)), m_plan(std::exchange(other.m_plan, nullptr)) {}
+template <class Real, class In>
+detail::FftBuffers<Real, In>::FftBuffers(FftBuffers&& other) noexcept
+    : n(std::exchange(other.n, 0)), in(std::exchange(other.in, nullptr)), out(std::exchange(other.out, nullptr)),
+      plan(std::exchange(other.plan, nullptr)) {}
 
-template <class Real>
-RealFft<Real>& RealFft<Real>::operator=(RealFft&& other) noexcept {
+template <class Real, class In>
+detail::FftBuffers<Real, In>& detail::FftBuffers<Real, In>::operator=(FftBuffers&& other) noexcept {
     if (this != &other) {
-        release<Real>(m_in);
-        release<Real>(m_out);
-        m_n = std::exchange(other.m_n, 0);
-        m_in = std::exchange(other.m_in, nullptr);
-        m_out = std::exchange(other.m_out, nullptr);
-        m_plan = std::exchange(other.m_plan, nullptr);
+        release<Real>(in);
+        release<Real>(out);
+        n = std::exchange(other.n, 0);
+        in = std::exchange(other.in, nullptr);
+        out = std::exchange(other.out, nullptr);
+        plan = std::exchange(other.plan, nullptr);
     }
     return *this;
 }
 
+template struct detail::FftBuffers<double, double>;
+template struct detail::FftBuffers<float, float>;
+template struct detail::FftBuffers<double, std::complex<double>>;
+template struct detail::FftBuffers<float, std::complex<float>>;
+
+template <class Real>
+RealFft<Real>::RealFft(std::size_t n)
+    : m_b(n, n / 2 + 1, cachedPlan<Real>(checked(n, "RealFft"), PlanKind::RealForward)) {}
+
 template <class Real>
 void RealFft<Real>::execute() {
-    if (!m_plan) throw std::logic_error("RealFft::execute on a moved-from object");
-    Fftw<Real>::executeR2c(m_plan, m_in, reinterpret_cast<typename Fftw<Real>::Complex*>(m_out));
+    if (!m_b.plan) throw std::logic_error("RealFft::execute on a moved-from object");
+    Fftw<Real>::executeR2c(m_b.plan, m_b.in, reinterpret_cast<typename Fftw<Real>::Complex*>(m_b.out));
 }
 
 namespace {
@@ -208,48 +221,16 @@ template RealFft<double>& keptRealFft<double>(std::size_t, std::optional<RealFft
 template RealFft<float>& keptRealFft<float>(std::size_t, std::optional<RealFft<float>>&);
 
 template <class Real>
-ComplexFft<Real>::ComplexFft(std::size_t n, FftDirection direction) : m_n(n) {
-    checkSize(n, "ComplexFft");
-    m_plan = cachedPlan<Real>(n, direction == FftDirection::Forward ? PlanKind::ComplexForward
-                                                                    : PlanKind::ComplexBackward);
-    m_in = allocate<std::complex<Real>>(n);
-    try {
-        m_out = allocate<std::complex<Real>>(n);
-    } catch (...) {
-        release<Real>(m_in);
-        throw;
-    }
-}
-
-template <class Real>
-ComplexFft<Real>::~ComplexFft() {
-    release<Real>(m_in);
-    release<Real>(m_out);
-}
-
-template <class Real>
-ComplexFft<Real>::ComplexFft(ComplexFft&& other) noexcept
-    : m_n(std::exchange(other.m_n, 0)), m_in(std::exchange(other.m_in, nullptr)),
-      m_out(std::exchange(other.m_out, nullptr)), m_plan(std::exchange(other.m_plan, nullptr)) {}
-
-template <class Real>
-ComplexFft<Real>& ComplexFft<Real>::operator=(ComplexFft&& other) noexcept {
-    if (this != &other) {
-        release<Real>(m_in);
-        release<Real>(m_out);
-        m_n = std::exchange(other.m_n, 0);
-        m_in = std::exchange(other.m_in, nullptr);
-        m_out = std::exchange(other.m_out, nullptr);
-        m_plan = std::exchange(other.m_plan, nullptr);
-    }
-    return *this;
-}
+ComplexFft<Real>::ComplexFft(std::size_t n, FftDirection direction)
+    : m_b(n, n,
+          cachedPlan<Real>(checked(n, "ComplexFft"),
+                           direction == FftDirection::Forward ? PlanKind::ComplexForward : PlanKind::ComplexBackward)) {}
 
 template <class Real>
 void ComplexFft<Real>::execute() {
-    if (!m_plan) throw std::logic_error("ComplexFft::execute on a moved-from object");
+    if (!m_b.plan) throw std::logic_error("ComplexFft::execute on a moved-from object");
     using C = typename Fftw<Real>::Complex;
-    Fftw<Real>::executeC2c(m_plan, reinterpret_cast<C*>(m_in), reinterpret_cast<C*>(m_out));
+    Fftw<Real>::executeC2c(m_b.plan, reinterpret_cast<C*>(m_b.in), reinterpret_cast<C*>(m_b.out));
 }
 
 template class RealFft<double>;

@@ -18,29 +18,41 @@
 
 namespace humwise::dsp {
 
+namespace detail {
+// A transform's input (n values) and output (outCount complex values) in FFTW's aligned memory,
+// and the cached plan that runs on them. Move-only; a moved-from one holds nothing (size 0, no
+// plan) and its owner refuses to execute.
+template <class Real, class In>
+struct FftBuffers {
+    FftBuffers(std::size_t n, std::size_t outCount, void* plan);
+    ~FftBuffers();
+    FftBuffers(const FftBuffers&) = delete;
+    FftBuffers& operator=(const FftBuffers&) = delete;
+    FftBuffers(FftBuffers&& other) noexcept;
+    FftBuffers& operator=(FftBuffers&& other) noexcept;
+
+    std::size_t n = 0;
+    In* in = nullptr;
+    std::complex<Real>* out = nullptr;
+    void* plan = nullptr; // owned by the process-wide cache
+};
+} // namespace detail
+
 // Real input of length n -> n/2+1 complex bins (forward).
 template <class Real>
 class RealFft {
 public:
     explicit RealFft(std::size_t n);
-    ~RealFft();
-    RealFft(const RealFft&) = delete;
-    RealFft& operator=(const RealFft&) = delete;
-    RealFft(RealFft&& other) noexcept;
-    RealFft& operator=(RealFft&& other) noexcept;
 
-    std::size_t size() const { return m_n; }
-    std::size_t binCount() const { return m_n / 2 + 1; }
-    std::span<Real> input() { return {m_in, m_n}; }
-    std::span<const std::complex<Real>> output() const { return {m_out, binCount()}; }
-    std::span<std::complex<Real>> output() { return {m_out, binCount()}; }
+    std::size_t size() const { return m_b.n; }
+    std::size_t binCount() const { return m_b.n / 2 + 1; }
+    std::span<Real> input() { return {m_b.in, m_b.n}; }
+    std::span<const std::complex<Real>> output() const { return {m_b.out, binCount()}; }
+    std::span<std::complex<Real>> output() { return {m_b.out, binCount()}; }
     void execute();
 
 private:
-    std::size_t m_n = 0;
-    Real* m_in = nullptr;
-    std::complex<Real>* m_out = nullptr;
-    void* m_plan = nullptr; // owned by the process-wide cache
+    detail::FftBuffers<Real, Real> m_b;
 };
 
 // A forward real transform of length n kept for the calling thread and reused: the analysis
@@ -68,23 +80,15 @@ template <class Real>
 class ComplexFft {
 public:
     ComplexFft(std::size_t n, FftDirection direction);
-    ~ComplexFft();
-    ComplexFft(const ComplexFft&) = delete;
-    ComplexFft& operator=(const ComplexFft&) = delete;
-    ComplexFft(ComplexFft&& other) noexcept;
-    ComplexFft& operator=(ComplexFft&& other) noexcept;
 
-    std::size_t size() const { return m_n; }
-    std::span<std::complex<Real>> input() { return {m_in, m_n}; }
-    std::span<const std::complex<Real>> output() const { return {m_out, m_n}; }
-    std::span<std::complex<Real>> output() { return {m_out, m_n}; }
+    std::size_t size() const { return m_b.n; }
+    std::span<std::complex<Real>> input() { return {m_b.in, m_b.n}; }
+    std::span<const std::complex<Real>> output() const { return {m_b.out, m_b.n}; }
+    std::span<std::complex<Real>> output() { return {m_b.out, m_b.n}; }
     void execute();
 
 private:
-    std::size_t m_n = 0;
-    std::complex<Real>* m_in = nullptr;
-    std::complex<Real>* m_out = nullptr;
-    void* m_plan = nullptr;
+    detail::FftBuffers<Real, std::complex<Real>> m_b;
 };
 
 // The smallest n' >= n whose only prime factors are 2, 3, 5 and 7 (sizes FFTW handles fast) and
