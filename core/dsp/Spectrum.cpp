@@ -2,7 +2,7 @@
 
 #include "core/dsp/BandSignal.h"
 #include "core/dsp/Fft.h"
-#include "core/util/DoubleLanes.h"
+#include "core/util/Sums.h"
 #include "core/util/VectorClones.h"
 
 #include <algorithm>
@@ -229,29 +229,6 @@ bool derivable(std::size_t headLines, std::size_t n) {
     return headLines <= kMaxDerivedWindowLines && 2 * headLines - 1 <= n;
 }
 
-// in[i] = seg[i] w[i] for i < n, returning the sum of seg (for the mean, removed after the
-// transform): vectors of lanes, so that the sum's additions do not wait on each other
-// (DoubleLanes.h).
-HUMWISE_VECTOR_CLONES double windowedCopy(const double* seg, const double* w, std::size_t n, double* in) {
-    using util::DoubleLanes;
-    DoubleLanes part[util::kReductionVectors] = {};
-    std::size_t i = 0;
-    for (; i + util::kReductionWidth <= n; i += util::kReductionWidth)
-        for (std::size_t v = 0; v < util::kReductionVectors; ++v) {
-            DoubleLanes x, wv;
-            util::loadLanes(x, seg + i + 4 * v);
-            util::loadLanes(wv, w + i + 4 * v);
-            part[v] += x;
-            util::storeLanes(in + i + 4 * v, x * wv);
-        }
-    double sum = util::sumOfLanes(part);
-    for (; i < n; ++i) {
-        sum += seg[i];
-        in[i] = seg[i] * w[i];
-    }
-    return sum;
-}
-
 // power[k] += |out[k]|^2 (vectorises in the clones).
 HUMWISE_VECTOR_CLONES void addPower(const std::complex<double>* out, std::size_t bins, double* power) {
     const auto* f = reinterpret_cast<const double*>(out); // std::complex<double> is two doubles ([complex.numbers])
@@ -271,7 +248,7 @@ std::vector<double> segmentPower(std::span<const double> x, const SegmentPlan& p
     const double invN = 1.0 / static_cast<double>(n);
     for (std::size_t a = 0; a < plan.averages; ++a) {
         const double* seg = x.data() + a * plan.step;
-        const double sum = windowedCopy(seg, w.data(), n, in.data());
+        const double sum = util::weightedCopyAndSum({seg, n}, w.data(), in.data()); // for the mean, removed after the transform
         fft.execute();
         auto out = fft.output();
         if (removeMean) {

@@ -10,9 +10,12 @@ namespace humwise::util {
 
 namespace {
 
-// sum_n x[n], and x copied to out when Copy: one pass for both.
-template <bool Copy>
-HUMWISE_VECTOR_CLONES double sumPass(std::span<const double> x, double* out) {
+// What a summing pass also writes to out: nothing, x itself, or x[n] w[n].
+enum class Copy { None, Plain, Weighted };
+
+// sum_n x[n], and the copy asked for: one pass for both.
+template <Copy C>
+HUMWISE_VECTOR_CLONES double sumPass(std::span<const double> x, const double* w, double* out) {
     DoubleLanes p[kReductionVectors] = {};
     std::size_t i = 0;
     for (; i + kReductionWidth <= x.size(); i += kReductionWidth)
@@ -20,21 +23,31 @@ HUMWISE_VECTOR_CLONES double sumPass(std::span<const double> x, double* out) {
             DoubleLanes y;
             loadLanes(y, x.data() + i + 4 * v);
             p[v] += y;
-            if constexpr (Copy) storeLanes(out + i + 4 * v, y);
+            if constexpr (C == Copy::Plain) storeLanes(out + i + 4 * v, y);
+            if constexpr (C == Copy::Weighted) {
+                DoubleLanes wv;
+                loadLanes(wv, w + i + 4 * v);
+                storeLanes(out + i + 4 * v, y * wv);
+            }
         }
     double tail = 0;
     for (; i < x.size(); ++i) {
         tail += x[i];
-        if constexpr (Copy) out[i] = x[i];
+        if constexpr (C == Copy::Plain) out[i] = x[i];
+        if constexpr (C == Copy::Weighted) out[i] = x[i] * w[i];
     }
     return sumOfLanes(p) + tail;
 }
 
 } // namespace
 
-double sumOf(std::span<const double> x) { return sumPass<false>(x, nullptr); }
+double sumOf(std::span<const double> x) { return sumPass<Copy::None>(x, nullptr, nullptr); }
 
-double copyAndSum(std::span<const double> x, double* out) { return sumPass<true>(x, out); }
+double copyAndSum(std::span<const double> x, double* out) { return sumPass<Copy::Plain>(x, nullptr, out); }
+
+double weightedCopyAndSum(std::span<const double> x, const double* w, double* out) {
+    return sumPass<Copy::Weighted>(x, w, out);
+}
 
 HUMWISE_VECTOR_CLONES DeviationSums deviationSums(std::span<const double> x, double about) {
     DoubleLanes s[kReductionVectors] = {}, q[kReductionVectors] = {};

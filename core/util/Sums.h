@@ -17,6 +17,10 @@ double sumOf(std::span<const double> x);
 // Copies x to out (x.size() doubles, not overlapping x) and returns sum_n x[n]: one pass.
 double copyAndSum(std::span<const double> x, double* out);
 
+// Writes x[n] w[n] to out (w and out of x.size() doubles, out overlapping neither) and returns
+// sum_n x[n]: a windowed segment and its mean in one pass.
+double weightedCopyAndSum(std::span<const double> x, const double* w, double* out);
+
 struct DeviationSums {
     double sum = 0;     // sum_n (x[n] - about)
     double squares = 0; // sum_n (x[n] - about)^2

@@ -27,6 +27,13 @@ TEST(Sums, EveryLengthAroundTheSplitIntoLanes) {
         std::vector<double> copy(n, -1.0);
         EXPECT_EQ(copyAndSum(x, copy.data()), naive) << n;
         EXPECT_EQ(copy, x) << n;
+        std::vector<double> w(n), weighted(n, -1.0), expected(n);
+        for (std::size_t i = 0; i < n; ++i) {
+            w[i] = 0.25 * static_cast<double>(i % 5);
+            expected[i] = x[i] * w[i];
+        }
+        EXPECT_EQ(weightedCopyAndSum(x, w.data(), weighted.data()), naive) << n;
+        EXPECT_EQ(weighted, expected) << n;
         const DeviationSums d = deviationSums(x, 1.0);
         EXPECT_EQ(d.sum, naive - static_cast<double>(n)) << n;
         EXPECT_EQ(d.squares, naiveSquares) << n;
